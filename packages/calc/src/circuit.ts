@@ -171,3 +171,17 @@ export function isGround(node: string): boolean {
   const n = node.toLowerCase();
   return n === '0' || n === 'gnd';
 }
+
+/** A frequency sweep as SPICE's `.ac` line states it. */
+export const acSweepSchema = z
+  .object({
+    /** `dec`: points per decade; `oct`: points per octave; `lin`: points in all. */
+    type: z.enum(['dec', 'oct', 'lin']),
+    points: z.number().int().min(1).max(10_000),
+    /** Start frequency in Hz (> 0). */
+    fstart: positive,
+    /** Stop frequency in Hz (≥ fstart). */
+    fstop: positive,
+  })
+  .refine((s) => s.fstop >= s.fstart, { message: 'stop frequency is below start frequency', path: ['fstop'] });
+export type AcSweep = z.infer<typeof acSweepSchema>;
