@@ -1,0 +1,36 @@
+/** Field-level messages for a 400 answer, keyed by the field's path (`email`, `elements.2.value`). */
+export type FieldErrors = Record<string, string>;
+
+const statusByCode = {
+  'bad-request': 400,
+  'validation-failed': 400,
+  unauthenticated: 401,
+  forbidden: 403,
+  'not-found': 404,
+  conflict: 409,
+  'unprocessable': 422,
+  'too-many-requests': 429,
+  'payload-too-large': 413,
+  unavailable: 503,
+  internal: 500,
+} as const;
+
+export type AppErrorCode = keyof typeof statusByCode;
+
+/**
+ * The one error type of the server. Use cases throw it; the error middleware turns it into
+ * `{"error":{"code","message","fields"?}}` with the status its code implies.
+ */
+export class AppError extends Error {
+  override readonly name = 'AppError';
+  readonly status: number;
+  constructor(
+    readonly code: AppErrorCode,
+    message: string,
+    readonly fields?: FieldErrors,
+    options?: { cause?: unknown },
+  ) {
+    super(message, options);
+    this.status = statusByCode[code];
+  }
+}

@@ -1,0 +1,27 @@
+import tailwindcss from '@tailwindcss/vite';
+import react from '@vitejs/plugin-react';
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+
+/**
+ * The web app's Vite config, also its vitest project ("web"). In development Vite serves the
+ * app on :5173 and forwards `/api` to the Express server; in production Express serves
+ * `dist/` itself, so the app only ever uses relative `/api` URLs.
+ */
+export default defineConfig({
+  plugins: [react(), tailwindcss()],
+  resolve: { alias: { '@': fileURLToPath(new URL('./src', import.meta.url)) } },
+  server: {
+    port: 5173,
+    strictPort: true,
+    proxy: { '/api': 'http://127.0.0.1:3000' },
+  },
+  preview: { port: 4173, strictPort: true },
+  build: { outDir: 'dist', emptyOutDir: true },
+  test: {
+    name: 'web',
+    environment: 'jsdom',
+    include: ['src/**/*.test.{ts,tsx}'],
+    setupFiles: ['./src/test/setup.ts'],
+  },
+});
