@@ -1,4 +1,10 @@
-// Schemas of the API shared by the server (validation) and the web app (forms, responses).
+// Shared by the server (validation, authority) and the web app (forms, responses, buttons).
+export * from './roles.ts';
+export * from './abilities.ts';
+export * from './api/common.ts';
 export * from './api/errors.ts';
 export * from './api/health.ts';
+export * from './api/password-policy.ts';
 export * from './api/auth.ts';
+export * from './api/members.ts';
+export * from './api/orgs.ts';
