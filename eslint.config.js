@@ -20,13 +20,22 @@ export default tseslint.config(
       globals: { ...globals.node },
       parserOptions: {
         projectService: {
-          allowDefaultProject: ['*.mjs', 'vite.config.ts', 'scripts/*.mjs', 'scripts/lib/*.mjs', 'packages/calc/bin/*.mjs'],
+          allowDefaultProject: [
+            '*.mjs',
+            'vite.config.ts',
+            'scripts/*.mjs',
+            'scripts/lib/*.mjs',
+            'packages/calc/bin/*.mjs',
+          ],
         },
         tsconfigRootDir: import.meta.dirname,
       },
     },
     rules: {
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_' },
+      ],
       '@typescript-eslint/consistent-type-imports': 'error',
     },
   },

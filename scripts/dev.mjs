@@ -19,10 +19,15 @@ try {
   const seeded = await run(process.execPath, [tsx, join(rootDir, 'seed', 'src', 'load-demo.ts')]);
   if (seeded.code !== 0) throw new Error('loading the demo data failed');
   await startMaildev({ smtpPort: 1025, webPort: 1080 });
-  startChild('server', process.execPath, [tsx, 'watch', '--clear-screen=false', join(rootDir, 'apps', 'server', 'src', 'main.ts')], {
-    cwd: rootDir,
-    env: { ...process.env, LOG_LEVEL: process.env.LOG_LEVEL ?? 'info' },
-  });
+  startChild(
+    'server',
+    process.execPath,
+    [tsx, 'watch', '--clear-screen=false', join(rootDir, 'apps', 'server', 'src', 'main.ts')],
+    {
+      cwd: rootDir,
+      env: { ...process.env, LOG_LEVEL: process.env.LOG_LEVEL ?? 'info' },
+    },
+  );
   startChild('web', 'npm', ['run', 'dev', '-w', 'apps/web'], { cwd: rootDir });
   log('web (HMR) http://localhost:5173   api http://localhost:3000   mail http://localhost:1080');
 } catch (e) {

@@ -3,7 +3,14 @@
 // http://localhost:3000. Ctrl-C stops everything this command started.
 import { join } from 'node:path';
 import { run, stopAllChildren } from './lib/processes.mjs';
-import { log, rootDir, startMaildev, startPostgres, stopPostgres, portIsFree } from './lib/services.mjs';
+import {
+  log,
+  rootDir,
+  startMaildev,
+  startPostgres,
+  stopPostgres,
+  portIsFree,
+} from './lib/services.mjs';
 import { buildWebIfStale, webDist } from './lib/web-build.mjs';
 import { startServer } from './lib/server.mjs';
 
@@ -21,14 +28,26 @@ async function stopEverything(code) {
 }
 
 async function main() {
-  if (!(await portIsFree(port))) throw new Error(`port ${port} is taken; is Biasproof already running? (set PORT to use another)`);
+  if (!(await portIsFree(port)))
+    throw new Error(
+      `port ${port} is taken; is Biasproof already running? (set PORT to use another)`,
+    );
   startedPostgres = await startPostgres();
 
-  const env = { SMTP_PORT: String(smtpPort), PORT: String(port), WEB_DIST: webDist, APP_URL: `http://localhost:${port}` };
-  const migrated = await run(process.execPath, [tsx, join(rootDir, 'apps', 'server', 'src', 'db', 'migrate-cli.ts')], {
-    env: { ...process.env, ...env },
-    echo: true,
-  });
+  const env = {
+    SMTP_PORT: String(smtpPort),
+    PORT: String(port),
+    WEB_DIST: webDist,
+    APP_URL: `http://localhost:${port}`,
+  };
+  const migrated = await run(
+    process.execPath,
+    [tsx, join(rootDir, 'apps', 'server', 'src', 'db', 'migrate-cli.ts')],
+    {
+      env: { ...process.env, ...env },
+      echo: true,
+    },
+  );
   if (migrated.code !== 0) throw new Error('migrations failed');
   const seeded = await run(process.execPath, [tsx, join(rootDir, 'seed', 'src', 'load-demo.ts')], {
     env: { ...process.env, ...env },
@@ -42,8 +61,12 @@ async function main() {
 
   log('');
   log(`Biasproof       http://localhost:${port}`);
-  log(`Mail inbox      http://localhost:${mailWebPort}   (maildev: every e-mail the app sends lands here)`);
-  log(`Database        postgres://127.0.0.1:${process.env.PGPORT ?? 54329} (project-local, data in .data/pg)`);
+  log(
+    `Mail inbox      http://localhost:${mailWebPort}   (maildev: every e-mail the app sends lands here)`,
+  );
+  log(
+    `Database        postgres://127.0.0.1:${process.env.PGPORT ?? 54329} (project-local, data in .data/pg)`,
+  );
   if (demoSignIns) for (const line of demoSignIns.split('\n')) log(line);
   log('Press Ctrl-C to stop.');
 }

@@ -5,7 +5,14 @@
 import { mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { run, stopAllChildren } from './lib/processes.mjs';
-import { ensureDebianPackage, log, rootDir, startMaildev, startPostgres, stopPostgres } from './lib/services.mjs';
+import {
+  ensureDebianPackage,
+  log,
+  rootDir,
+  startMaildev,
+  startPostgres,
+  stopPostgres,
+} from './lib/services.mjs';
 import { createTestDatabase, dropTestDatabase } from './lib/test-database.mjs';
 import { freePort } from './lib/free-port.mjs';
 import { buildWebIfStale, webDist } from './lib/web-build.mjs';
@@ -18,7 +25,10 @@ let database;
 
 async function cleanUp() {
   await stopAllChildren();
-  if (database) await dropTestDatabase(database.name).catch((e) => log(`could not drop ${database.name}: ${e.message}`));
+  if (database)
+    await dropTestDatabase(database.name).catch((e) =>
+      log(`could not drop ${database.name}: ${e.message}`),
+    );
   if (startedPostgres) await stopPostgres();
 }
 
@@ -27,7 +37,9 @@ function summarize() {
     const r = JSON.parse(readFileSync(resultsFile, 'utf8'));
     const skipped = (r.numPendingTests ?? 0) + (r.numTodoTests ?? 0);
     // A test file that fails to load has no failed test of its own; count it so it shows.
-    const brokenFiles = (r.testResults ?? []).filter((f) => f.status === 'failed' && f.assertionResults.length === 0).length;
+    const brokenFiles = (r.testResults ?? []).filter(
+      (f) => f.status === 'failed' && f.assertionResults.length === 0,
+    ).length;
     return { passed: r.numPassedTests, failed: r.numFailedTests + brokenFiles, skipped };
   } catch {
     return { passed: 0, failed: 1, skipped: 0 };
@@ -56,20 +68,42 @@ async function main() {
     MAILDEV_API_URL: `http://127.0.0.1:${mailWebPort}`,
     LOG_LEVEL: 'warn',
   };
-  const migrated = await run(process.execPath, [join(rootDir, 'node_modules', 'tsx', 'dist', 'cli.mjs'), join(rootDir, 'apps', 'server', 'src', 'db', 'migrate-cli.ts')], {
-    env: { ...process.env, ...env },
-  });
+  const migrated = await run(
+    process.execPath,
+    [
+      join(rootDir, 'node_modules', 'tsx', 'dist', 'cli.mjs'),
+      join(rootDir, 'apps', 'server', 'src', 'db', 'migrate-cli.ts'),
+    ],
+    {
+      env: { ...process.env, ...env },
+    },
+  );
   if (migrated.code !== 0) throw new Error('migrations failed');
 
   await buildWebIfStale();
-  await startServer({ ...env, PORT: String(serverPort), WEB_DIST: webDist, APP_URL: `http://localhost:${serverPort}` }, { quiet: true });
+  await startServer(
+    {
+      ...env,
+      PORT: String(serverPort),
+      WEB_DIST: webDist,
+      APP_URL: `http://localhost:${serverPort}`,
+    },
+    { quiet: true },
+  );
 
   mkdirSync(join(rootDir, '.data'), { recursive: true });
   rmSync(resultsFile, { force: true });
   const vitest = join(rootDir, 'node_modules', 'vitest', 'vitest.mjs');
   const { code } = await run(
     process.execPath,
-    [vitest, 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${resultsFile}`, ...vitestArgs],
+    [
+      vitest,
+      'run',
+      '--reporter=default',
+      '--reporter=json',
+      `--outputFile.json=${resultsFile}`,
+      ...vitestArgs,
+    ],
     {
       cwd: rootDir,
       stdio: ['ignore', 'inherit', 'inherit'],
@@ -94,5 +128,7 @@ try {
 await cleanUp();
 const { passed, failed, skipped } = summarize();
 if (exitCode !== 0 && failed === 0) exitCode = 1;
-process.stdout.write(`${passed} passed, ${failed} failed${skipped ? `, ${skipped} skipped` : ''}\n`);
+process.stdout.write(
+  `${passed} passed, ${failed} failed${skipped ? `, ${skipped} skipped` : ''}\n`,
+);
 process.exit(exitCode !== 0 || failed > 0 ? 1 : 0);

@@ -15,7 +15,8 @@ export function startChild(label, command, args, options = {}) {
   const prefix = (stream, out) =>
     stream.on('data', (chunk) => {
       if (quiet) return;
-      for (const line of String(chunk).split('\n')) if (line.trim()) out.write(`[${label}] ${line}\n`);
+      for (const line of String(chunk).split('\n'))
+        if (line.trim()) out.write(`[${label}] ${line}\n`);
     });
   prefix(child.stdout, process.stdout);
   prefix(child.stderr, process.stderr);

@@ -13,7 +13,9 @@ export function log(message) {
 
 /** Starts PostgreSQL; resolves with true when this call started it (so the caller stops it). */
 export async function startPostgres(env = process.env) {
-  const { code, stdout } = await run('bash', [join(rootDir, 'docker-less-db', 'pg-start.sh')], { env });
+  const { code, stdout } = await run('bash', [join(rootDir, 'docker-less-db', 'pg-start.sh')], {
+    env,
+  });
   if (code !== 0) throw new Error('PostgreSQL did not start (see the [db] lines above)');
   return stdout.trim().endsWith('started');
 }
@@ -46,14 +48,27 @@ export async function waitFor(check, what, timeoutMs = 60_000) {
 export async function startMaildev({ smtpPort, webPort }) {
   for (const port of [smtpPort, webPort]) {
     if (!(await portIsFree(port))) {
-      throw new Error(`port ${port} is taken; stop the program using it (maildev from another run?) and try again`);
+      throw new Error(
+        `port ${port} is taken; stop the program using it (maildev from another run?) and try again`,
+      );
     }
   }
   const bin = join(rootDir, 'node_modules', 'maildev', 'dist', 'bin', 'maildev.js');
   const child = startChild(
     'mail',
     process.execPath,
-    [bin, '--smtp', String(smtpPort), '--web', String(webPort), '--ip', '127.0.0.1', '--web-ip', '127.0.0.1', '--silent'],
+    [
+      bin,
+      '--smtp',
+      String(smtpPort),
+      '--web',
+      String(webPort),
+      '--ip',
+      '127.0.0.1',
+      '--web-ip',
+      '127.0.0.1',
+      '--silent',
+    ],
     { quiet: true },
   );
   await waitFor(async () => {
@@ -74,7 +89,9 @@ export async function startMaildev({ smtpPort, webPort }) {
 export async function ensureDebianPackage(program, pkg) {
   if (existsSync(program)) return;
   if (process.getuid?.() !== 0) {
-    throw new Error(`${program} is missing. Install it once with: sudo apt-get update && sudo apt-get install -y ${pkg}`);
+    throw new Error(
+      `${program} is missing. Install it once with: sudo apt-get update && sudo apt-get install -y ${pkg}`,
+    );
   }
   log(`installing Debian package ${pkg} (for ${program})`);
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };

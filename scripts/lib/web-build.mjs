@@ -37,6 +37,9 @@ export function webBuildIsStale() {
 export async function buildWebIfStale() {
   if (!webBuildIsStale()) return;
   log('building the web app');
-  const { code } = await run('npm', ['run', 'build', '-w', 'apps/web'], { cwd: rootDir, stdio: ['ignore', 'inherit', 'inherit'] });
+  const { code } = await run('npm', ['run', 'build', '-w', 'apps/web'], {
+    cwd: rootDir,
+    stdio: ['ignore', 'inherit', 'inherit'],
+  });
   if (code !== 0) throw new Error('the web app did not build');
 }

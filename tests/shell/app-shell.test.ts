@@ -23,11 +23,16 @@ describe('the app shell in a real browser', () => {
     expect(family).toMatch(/^["']?Noto Sans["']?/);
     const loaded = await page.evaluate(async () => {
       await document.fonts.ready;
-      return [...document.fonts].filter((f) => f.family.replace(/["']/g, '') === 'Noto Sans' && f.status === 'loaded').length;
+      return [...document.fonts].filter(
+        (f) => f.family.replace(/["']/g, '') === 'Noto Sans' && f.status === 'loaded',
+      ).length;
     });
     expect(loaded).toBeGreaterThan(0);
     const fontRequests = await page.evaluate(() =>
-      performance.getEntriesByType('resource').map((e) => e.name).filter((n) => /\.woff2?($|\?)/.test(n)),
+      performance
+        .getEntriesByType('resource')
+        .map((e) => e.name)
+        .filter((n) => /\.woff2?($|\?)/.test(n)),
     );
     expect(fontRequests.length).toBeGreaterThan(0);
     for (const url of fontRequests) expect(new URL(url).origin).toBe(new URL(baseUrl()).origin);
@@ -42,6 +47,8 @@ describe('the app shell in a real browser', () => {
   it('when a deep link is opened, then the server answers with the app and its sign-in page', async () => {
     const res = await page.goto(`${baseUrl()}/sign-in`);
     expect(res?.status()).toBe(200);
-    await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent()).toMatch(/sign in/i);
+    await expect
+      .poll(() => page.getByRole('heading', { level: 1 }).textContent())
+      .toMatch(/sign in/i);
   });
 });
