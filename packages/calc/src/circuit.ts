@@ -22,7 +22,10 @@ const elementName = z
   .trim()
   .min(2, 'element name needs its letter and at least one more character')
   .max(64)
-  .regex(/^[A-Za-z][A-Za-z0-9_.]*$/, 'element name must start with its letter and hold letters, digits, _ or .');
+  .regex(
+    /^[A-Za-z][A-Za-z0-9_.]*$/,
+    'element name must start with its letter and hold letters, digits, _ or .',
+  );
 
 const finite = z.number().finite();
 const positive = finite.positive();
@@ -132,13 +135,20 @@ export const elementSchema = z.discriminatedUnion('kind', [
 export const modelKinds = ['D', 'NPN', 'PNP', 'NMOS', 'PMOS'] as const;
 
 export const modelSchema = z.object({
-  name: z.string().trim().min(1).max(64).regex(/^[A-Za-z][A-Za-z0-9_.-]*$/, 'model name must start with a letter'),
+  name: z
+    .string()
+    .trim()
+    .min(1)
+    .max(64)
+    .regex(/^[A-Za-z][A-Za-z0-9_.-]*$/, 'model name must start with a letter'),
   kind: z.enum(modelKinds),
   /**
    * SPICE model-card parameters by their upper-case names (IS, N, RS, BF, VAF, VTO, KP…).
    * Omitted parameters take SPICE's defaults (see models/defaults.ts).
    */
-  params: z.record(z.string().regex(/^[A-Z][A-Z0-9]*$/, 'parameter names are upper case'), finite).default({}),
+  params: z
+    .record(z.string().regex(/^[A-Z][A-Z0-9]*$/, 'parameter names are upper case'), finite)
+    .default({}),
 });
 
 export const circuitSchema = z.object({
@@ -183,5 +193,8 @@ export const acSweepSchema = z
     /** Stop frequency in Hz (≥ fstart). */
     fstop: positive,
   })
-  .refine((s) => s.fstop >= s.fstart, { message: 'stop frequency is below start frequency', path: ['fstop'] });
+  .refine((s) => s.fstop >= s.fstart, {
+    message: 'stop frequency is below start frequency',
+    path: ['fstop'],
+  });
 export type AcSweep = z.infer<typeof acSweepSchema>;

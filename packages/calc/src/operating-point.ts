@@ -1,0 +1,115 @@
+import type { BjtOp } from './models/bjt.ts';
+import type { DiodeOp } from './models/diode.ts';
+import type { MosfetOp } from './models/mosfet.ts';
+import type { MnaSystem } from './mna.ts';
+import type { DiodeLaw } from './options.ts';
+
+export type { BjtOp } from './models/bjt.ts';
+export type { DiodeOp } from './models/diode.ts';
+export type { MosfetOp } from './models/mosfet.ts';
+
+export type DeviceOp = DiodeOp | BjtOp | MosfetOp;
+
+/** How the bias point was found. */
+export type OperatingPointMethod = 'plain' | 'gmin-stepping' | 'source-stepping' | 'assumed-state';
+
+/** Current and absorbed power of one element. */
+export interface ElementOp {
+  /** Current into the element's first terminal, A. */
+  current: number;
+  /** Power absorbed, W (negative for a source delivering power). */
+  power: number;
+}
+
+/** The bias point. Infinite resistances are `Infinity` (serialized as null by JSON.stringify). */
+export interface OperatingPoint {
+  /** Node voltages by lowercase name, V (ground and the internal nodes behind series resistances omitted). */
+  nodes: Record<string, number>;
+  /** Current of each V (and E) source by lowercase name, A, positive into its + terminal (SPICE's branch current). */
+  sources: Record<string, number>;
+  /** Operating quantities of every D, Q and M by lowercase name. */
+  devices: Record<string, DeviceOp>;
+  /** Current and power of every element by lowercase name. */
+  elements: Record<string, ElementOp>;
+  /** Power delivered by all independent sources together, W. */
+  supplyPower: number;
+  /** Newton iterations in all attempts; for `assumed-state`, the number of diode-state assignments solved. */
+  iterations: number;
+  method: OperatingPointMethod;
+  /** Largest KCL residual over the circuit's nodes at the reported solution, A. */
+  residual: number;
+  /** Circuit temperature, °C. */
+  temperature: number;
+  diodeLaw: DiodeLaw;
+  /** Model parameters the engine did not evaluate. */
+  warnings: string[];
+}
+
+export interface OperatingPointMeta {
+  iterations: number;
+  method: OperatingPointMethod;
+  temperature: number;
+  diodeLaw: DiodeLaw;
+  gmin: number;
+  warnings: string[];
+}
+
+/** Evaluates every element at the solution x and assembles the user-facing result. */
+export function buildOperatingPoint(
+  sys: MnaSystem,
+  x: Float64Array,
+  meta: OperatingPointMeta,
+): OperatingPoint {
+  const nodes: Record<string, number> = {};
+  for (const [name, i] of sys.nodeIndex) if (i !== sys.ground) nodes[name] = x[i]!;
+  const sources: Record<string, number> = {};
+  const devices: Record<string, DeviceOp> = {};
+  const elements: Record<string, ElementOp> = {};
+  const kcl = new Float64Array(sys.stride);
+  let supplyPower = 0;
+  for (const ce of sys.elements) {
+    const { el, terms } = ce;
+    const [p, m] = terms as [number, number];
+    const vpm = x[p]! - x[m]!;
+    let current = 0;
+    let power: number;
+    if (ce.device) {
+      const rep = ce.device.report(x, meta.gmin) as {
+        op: DeviceOp;
+        terminals: { node: number; current: number }[];
+      };
+      devices[el.name] = rep.op;
+      for (const t of rep.terminals) kcl[t.node]! += t.current;
+      current = rep.terminals[0]!.current;
+      power = rep.op.power;
+    } else {
+      switch (el.kind) {
+        case 'R':
+          current = vpm / el.value;
+          break;
+        case 'C':
+          current = 0;
+          break;
+        case 'I':
+          current = el.dc;
+          break;
+        case 'G':
+          current = el.gain * (x[terms[2]!]! - x[terms[3]!]!);
+          break;
+        default:
+          current = x[ce.branch]!;
+      }
+      kcl[p]! += current;
+      kcl[m]! -= current;
+      power = vpm * current;
+      if (el.kind === 'V' || el.kind === 'E') sources[el.name] = current;
+      if (el.kind === 'V' || el.kind === 'I') supplyPower -= power;
+    }
+    elements[el.name] = { current, power };
+  }
+  let residual = 0;
+  for (const i of sys.nodeIndex.values())
+    if (i !== sys.ground) residual = Math.max(residual, Math.abs(kcl[i]!));
+  const { gmin: _gmin, ...rest } = meta;
+  return { nodes, sources, devices, elements, supplyPower, residual, ...rest };
+}
