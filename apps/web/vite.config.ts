@@ -17,7 +17,21 @@ export default defineConfig({
     proxy: { '/api': 'http://127.0.0.1:3000' },
   },
   preview: { port: 4173, strictPort: true },
-  build: { outDir: 'dist', emptyOutDir: true },
+  build: {
+    outDir: 'dist',
+    emptyOutDir: true,
+    // React and the router change rarely; their own chunk stays cached across app releases.
+    rolldownOptions: {
+      output: {
+        codeSplitting: {
+          groups: [
+            { name: 'react', test: /node_modules[\\/](react|react-dom|react-router|react-router-dom|scheduler)[\\/]/, priority: 2 },
+            { name: 'vendor', test: /node_modules[\\/]/, priority: 1 },
+          ],
+        },
+      },
+    },
+  },
   test: {
     name: 'web',
     environment: 'jsdom',

@@ -13,7 +13,7 @@ try {
   await migrateToLatest(sequelize);
   const signIns: string[] = [];
   for (const step of demoSteps) {
-    const result = await step.load(sequelize);
+    const result = await step.load(sequelize, config);
     if (result.loaded) console.error(`[seed] ${step.name}: loaded`);
     signIns.push(...result.signIns);
   }

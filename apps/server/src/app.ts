@@ -8,6 +8,13 @@ import type { Mailer } from './mail/send-mail.ts';
 import { healthRoutes } from './health/routes.ts';
 import { apiNotFound, errorMiddleware } from './errors/error-middleware.ts';
 import { serveWeb } from './http/serve-web.ts';
+import type { Services } from './services.ts';
+import { createPasswordHasher } from './auth/passwords.ts';
+import { sessionMiddleware, sessionTimeouts } from './auth/session.ts';
+import { createCsrf } from './auth/csrf.ts';
+import { authRoutes } from './auth/routes.ts';
+import { invitationPublicRoutes } from './invitations/routes.ts';
+import { orgRoutes } from './orgs/routes.ts';
 
 export interface AppDeps {
   config: AppConfig;
@@ -17,10 +24,18 @@ export interface AppDeps {
 }
 
 /** Builds the Express app without listening, so tests drive it with supertest. */
-export function createApp({ config, sequelize, logger }: AppDeps): Express {
+export function createApp({ config, sequelize, logger, mailer }: AppDeps): Express {
+  const svc: Services = {
+    config,
+    sequelize,
+    logger,
+    mailer,
+    passwords: createPasswordHasher(config.argon2),
+  };
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', false);
+  // Behind one reverse proxy, its X-Forwarded-For names the client (per-address sign-in throttling).
+  app.set('trust proxy', config.trustProxy ? 1 : false);
   app.use(
     helmet({
       // HSTS on plain-HTTP localhost would pin browsers to https for the host; only send it
@@ -40,6 +55,11 @@ export function createApp({ config, sequelize, logger }: AppDeps): Express {
 
   const api = express.Router();
   api.use(healthRoutes(sequelize));
+  const csrf = createCsrf(config);
+  api.use(sessionMiddleware(config, sequelize, logger), sessionTimeouts(config), ...csrf.middleware);
+  api.use('/auth', authRoutes(svc, csrf));
+  api.use('/invitations', invitationPublicRoutes(svc, csrf));
+  api.use('/orgs/:orgId', orgRoutes(svc));
   api.use(apiNotFound);
   app.use('/api', api);
 

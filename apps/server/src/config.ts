@@ -26,6 +26,18 @@ const configSchema = z
     MAIL_FROM: z.string().min(3).default('Biasproof <no-reply@biasproof.example>'),
     LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
     WEB_DIST: z.string().optional(),
+    /** Trust X-Forwarded-For from one reverse proxy in front (for per-IP sign-in throttling). */
+    TRUST_PROXY: booleanFlag.default(false),
+    SESSION_IDLE_TIMEOUT_SECONDS: z.coerce.number().positive().default(30 * 60),
+    SESSION_ABSOLUTE_TIMEOUT_SECONDS: z.coerce.number().positive().default(12 * 60 * 60),
+    /** argon2id cost; the defaults follow OWASP's minimum (19 MiB, 2 passes). Tests lower them. */
+    ARGON2_MEMORY_KIB: z.coerce.number().int().min(8).default(19_456),
+    ARGON2_TIME_COST: z.coerce.number().int().min(1).default(2),
+    SIGN_IN_MAX_FAILURES: z.coerce.number().int().min(1).default(5),
+    SIGN_IN_MAX_FAILURES_PER_IP: z.coerce.number().int().min(1).default(50),
+    SIGN_IN_FAILURE_WINDOW_SECONDS: z.coerce.number().positive().default(15 * 60),
+    SIGN_IN_LOCK_SECONDS: z.coerce.number().positive().default(15 * 60),
+    PASSWORD_RESET_REQUESTS_PER_IP: z.coerce.number().int().min(1).default(20),
   })
   .superRefine((c, ctx) => {
     if (c.NODE_ENV === 'production' && !c.SESSION_SECRET) {
@@ -45,6 +57,12 @@ export interface AppConfig {
   logLevel: string;
   /** Folder of the built web app; undefined serves the API only. */
   webDist: string | undefined;
+  trustProxy: boolean;
+  session: { idleTimeoutMs: number; absoluteTimeoutMs: number };
+  argon2: { memoryKib: number; timeCost: number };
+  signInThrottle: { maxFailures: number; maxFailuresPerIp: number; windowMs: number; lockMs: number };
+  /** Password-reset requests one address may make in 15 minutes. */
+  passwordResetRequestsPerIp: number;
 }
 
 export class ConfigError extends Error {
@@ -72,5 +90,18 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     smtp: { host: c.SMTP_HOST, port: c.SMTP_PORT, from: c.MAIL_FROM },
     logLevel: c.LOG_LEVEL,
     webDist: c.WEB_DIST,
+    trustProxy: c.TRUST_PROXY,
+    session: {
+      idleTimeoutMs: c.SESSION_IDLE_TIMEOUT_SECONDS * 1000,
+      absoluteTimeoutMs: c.SESSION_ABSOLUTE_TIMEOUT_SECONDS * 1000,
+    },
+    argon2: { memoryKib: c.ARGON2_MEMORY_KIB, timeCost: c.ARGON2_TIME_COST },
+    signInThrottle: {
+      maxFailures: c.SIGN_IN_MAX_FAILURES,
+      maxFailuresPerIp: c.SIGN_IN_MAX_FAILURES_PER_IP,
+      windowMs: c.SIGN_IN_FAILURE_WINDOW_SECONDS * 1000,
+      lockMs: c.SIGN_IN_LOCK_SECONDS * 1000,
+    },
+    passwordResetRequestsPerIp: c.PASSWORD_RESET_REQUESTS_PER_IP,
   };
 }

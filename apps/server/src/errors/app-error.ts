@@ -13,6 +13,21 @@ const statusByCode = {
   'payload-too-large': 413,
   unavailable: 503,
   internal: 500,
+  // Specific codes the web app and scripts act on (docs/api.md).
+  'invalid-credentials': 401,
+  locked: 429,
+  csrf: 403,
+  'last-admin': 409,
+  'already-member': 409,
+  'invitation-pending': 409,
+  'account-exists': 409,
+  'wrong-account': 403,
+  'invitation-expired': 400,
+  'invitation-used': 400,
+  'invitation-revoked': 400,
+  'reset-token-invalid': 400,
+  'reset-token-expired': 400,
+  'reset-token-used': 400,
 } as const;
 
 export type AppErrorCode = keyof typeof statusByCode;

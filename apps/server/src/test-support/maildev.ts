@@ -16,15 +16,28 @@ export async function listEmails(): Promise<CapturedEmail[]> {
   return (await res.json()) as CapturedEmail[];
 }
 
-/** Polls maildev until a message to `address` matching `subject` arrives (SMTP is asynchronous). */
-export async function waitForEmail(address: string, subject: RegExp, timeoutMs = 10_000): Promise<CapturedEmail> {
+/** Polls maildev until a message to `address` satisfies `matches` (SMTP is asynchronous). */
+export async function waitForEmailWhere(
+  address: string,
+  matches: (mail: CapturedEmail) => boolean,
+  timeoutMs = 10_000,
+): Promise<CapturedEmail> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
     const found = (await listEmails()).find(
-      (m) => m.to.some((t) => t.address.toLowerCase() === address.toLowerCase()) && subject.test(m.subject),
+      (m) => m.to.some((t) => t.address.toLowerCase() === address.toLowerCase()) && matches(m),
     );
     if (found) return found;
     await new Promise((r) => setTimeout(r, 150));
   }
-  throw new Error(`no e-mail to ${address} matching ${String(subject)} within ${timeoutMs} ms`);
+  throw new Error(`no matching e-mail to ${address} within ${timeoutMs} ms`);
+}
+
+/** Polls maildev until a message to `address` matching `subject` arrives. */
+export async function waitForEmail(
+  address: string,
+  subject: RegExp,
+  timeoutMs = 10_000,
+): Promise<CapturedEmail> {
+  return waitForEmailWhere(address, (m) => subject.test(m.subject), timeoutMs);
 }

@@ -16,13 +16,26 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-/** The real app over the run's real database and maildev; close() releases the pool. */
-export function createTestApp(overrides: { databaseUrl?: string } = {}): TestApp {
+export interface TestAppOptions {
+  databaseUrl?: string;
+  /** Extra environment for loadConfig, e.g. `{ SESSION_IDLE_TIMEOUT_SECONDS: '1' }`. */
+  env?: Record<string, string>;
+}
+
+/**
+ * The real app over the run's real database and maildev; close() releases the pool.
+ * Password hashing runs at a low argon2 cost so that tests stay fast.
+ */
+export function createTestApp(overrides: TestAppOptions = {}): TestApp {
   const config = loadConfig({
     NODE_ENV: 'test',
     DATABASE_URL: overrides.databaseUrl ?? testEnv.databaseUrl,
     SMTP_PORT: String(testEnv.smtpPort),
     LOG_LEVEL: 'silent',
+    APP_URL: 'http://biasproof.test.example',
+    ARGON2_MEMORY_KIB: '256',
+    ARGON2_TIME_COST: '1',
+    ...overrides.env,
   });
   const sequelize = createSequelize(config.databaseUrl);
   const transport = createMailTransport(config.smtp);

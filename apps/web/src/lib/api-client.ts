@@ -1,5 +1,5 @@
-import type { z } from 'zod';
-import { apiErrorBodySchema } from '@biasproof/shared';
+import { z } from 'zod';
+import { apiErrorBodySchema, csrfResponseSchema } from '@biasproof/shared';
 import { appConfig } from '@/config/app-config.ts';
 
 /** Field messages the server attaches to a 400/422, keyed by field path. */
@@ -29,7 +29,6 @@ export class ApiError extends Error {
   }
 }
 
-
 export interface RequestOptions {
   method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
   body?: unknown;
@@ -40,6 +39,23 @@ export interface RequestOptions {
    * health check, which still reports what is down.
    */
   acceptStatuses?: readonly number[];
+  /**
+   * A 401 here is an ordinary answer (wrong password at sign-in, "who am I" while signed out),
+   * not a sign that the session ended; the unauthorized listeners are not told.
+   */
+  unauthorizedIsAnswer?: boolean;
+}
+
+/** For answers without a body worth reading (204, 202). */
+export const noContentSchema = z.unknown();
+
+type UnauthorizedListener = () => void;
+const unauthorizedListeners = new Set<UnauthorizedListener>();
+
+/** Called whenever the server answers 401 to a request that needed a session. */
+export function onUnauthorized(listener: UnauthorizedListener): () => void {
+  unauthorizedListeners.add(listener);
+  return () => unauthorizedListeners.delete(listener);
 }
 
 async function readJson(response: Response): Promise<unknown> {
@@ -65,15 +81,7 @@ function toApiError(status: number, body: unknown, statusText: string): ApiError
   });
 }
 
-/**
- * Calls `/api{path}` and returns its JSON body checked against `schema`. Throws ApiError for
- * an error answer, an unreachable server or a body that does not match the schema.
- */
-export async function apiRequest<T>(
-  path: string,
-  schema: z.ZodType<T>,
-  options: RequestOptions = {},
-): Promise<T> {
+async function send<T>(path: string, schema: z.ZodType<T>, options: RequestOptions): Promise<T> {
   const { method = 'GET', body, headers = {}, signal, acceptStatuses = [] } = options;
   let response: Response;
   try {
@@ -100,6 +108,9 @@ export async function apiRequest<T>(
 
   const payload = await readJson(response);
   if (!response.ok && !acceptStatuses.includes(response.status)) {
+    if (response.status === 401 && !options.unauthorizedIsAnswer) {
+      for (const listener of unauthorizedListeners) listener();
+    }
     throw toApiError(response.status, payload, response.statusText);
   }
 
@@ -113,4 +124,52 @@ export async function apiRequest<T>(
     });
   }
   return parsed.data;
+}
+
+// The CSRF token is bound to the session: fetched once, kept, and fetched again after the
+// session changes (sign-in, sign-out) or when the server rejects it.
+let csrfToken: Promise<string> | null = null;
+
+function currentCsrfToken(): Promise<string> {
+  csrfToken ??= send('/auth/csrf', csrfResponseSchema, {}).then(
+    (answer) => answer.token,
+    (error: unknown) => {
+      csrfToken = null;
+      throw error;
+    },
+  );
+  return csrfToken;
+}
+
+/** Drops the kept CSRF token; the next mutating request fetches a fresh one. */
+export function forgetCsrfToken(): void {
+  csrfToken = null;
+}
+
+function isCsrfRejection(error: unknown): boolean {
+  return error instanceof ApiError && error.status === 403 && error.code.startsWith('csrf');
+}
+
+/**
+ * Calls `/api{path}` and returns its JSON body checked against `schema`. Mutating requests
+ * carry the session's CSRF token (re-fetched and retried once when the server rejects it).
+ * Throws ApiError for an error answer, an unreachable server or a body that does not match.
+ */
+export async function apiRequest<T>(
+  path: string,
+  schema: z.ZodType<T>,
+  options: RequestOptions = {},
+): Promise<T> {
+  if ((options.method ?? 'GET') === 'GET') return send(path, schema, options);
+  const withToken = async () => ({
+    ...options,
+    headers: { ...options.headers, 'x-csrf-token': await currentCsrfToken() },
+  });
+  try {
+    return await send(path, schema, await withToken());
+  } catch (error) {
+    if (!isCsrfRejection(error)) throw error;
+    forgetCsrfToken();
+    return send(path, schema, await withToken());
+  }
 }

@@ -53,3 +53,8 @@ export const invitationPreviewSchema = z.object({
  */
 export const acceptInvitationNewAccountSchema = z.object({ name: personNameSchema, password: newPasswordSchema });
 export const acceptInvitationRequestSchema = z.union([acceptInvitationNewAccountSchema, z.object({}).strict()]);
+
+/** Query of `GET /api/orgs/:orgId/invitations`: pending ones (default) or all. */
+export const invitationListQuerySchema = z.object({
+  status: z.enum(['pending', 'all'], 'Use pending or all.').default('pending'),
+});

@@ -22,3 +22,33 @@ export const auditEventSchema = z.object({
   details: z.record(z.string(), z.unknown()),
 });
 export type AuditEvent = z.infer<typeof auditEventSchema>;
+
+const isoDateOrDateTime = z
+  .string()
+  .trim()
+  .refine(
+    (s) => /^\d{4}-\d{2}-\d{2}(T\d{2}:\d{2}(:\d{2}(\.\d{1,6})?)?(Z|[+-]\d{2}:\d{2}))?$/.test(s) && !Number.isNaN(Date.parse(s)),
+    'Use a date like 2026-12-01 or a date-time like 2026-12-01T09:30:00Z.',
+  );
+
+/**
+ * Query of `GET /api/orgs/:orgId/audit`: `action` (exact name), `actor` (user id), `from`/`to`
+ * (ISO date or date-time, inclusive; a bare `to` date includes that whole day, UTC), paging.
+ */
+export const auditListQuerySchema = z.object({
+  action: z.string().trim().min(1).max(100, 'An action name has at most 100 characters.').optional(),
+  actor: z.uuid('Choose a person from the list.').optional(),
+  from: isoDateOrDateTime.optional(),
+  to: isoDateOrDateTime.optional(),
+  limit: z.coerce.number().int('Use a whole number.').min(1, 'Use 1 to 500.').max(500, 'Use 1 to 500.').default(100),
+  offset: z.coerce.number().int('Use a whole number.').min(0, 'Use 0 or more.').default(0),
+});
+export type AuditListQuery = z.input<typeof auditListQuerySchema>;
+
+/** `GET /api/orgs/:orgId/audit/verify`: whether the organization's hash chain is intact. */
+export const auditVerifyResponseSchema = z.object({
+  ok: z.boolean(),
+  events: z.number().int().min(0),
+  firstBadEventId: z.string().optional(),
+});
+export type AuditVerifyResponse = z.infer<typeof auditVerifyResponseSchema>;

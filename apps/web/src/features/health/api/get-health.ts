@@ -16,6 +16,7 @@ export function healthQueryOptions() {
     queryKey: ['health'] as const,
     queryFn: ({ signal }) => getHealth(signal),
     refetchInterval: appConfig.healthRefetchIntervalMs,
+    meta: { keepAcrossSessions: true },
   });
 }
 

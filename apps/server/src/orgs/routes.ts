@@ -1,0 +1,24 @@
+import { Router } from 'express';
+import type { Services } from '../services.ts';
+import { requireUser } from '../auth/require-user.ts';
+import { memberRoutes } from '../members/routes.ts';
+import { invitationAdminRoutes } from '../invitations/routes.ts';
+import { auditRoutes } from '../audit/routes.ts';
+import { authorize, orgContextOf, orgScope } from './org-scope.ts';
+import { getOrganization } from './organizations.ts';
+
+/**
+ * `/api/orgs/:orgId/…`: everything below passes the tenant gate (orgScope) first, so routes
+ * only ever see their own organization through the org context.
+ */
+export function orgRoutes(svc: Services): Router {
+  const router = Router({ mergeParams: true });
+  router.use(requireUser(svc.sequelize), orgScope(svc.sequelize));
+  router.get('/', authorize('read', 'Organization'), async (_req, res) => {
+    res.json(await getOrganization(orgContextOf(res)));
+  });
+  router.use('/members', memberRoutes());
+  router.use('/invitations', invitationAdminRoutes(svc));
+  router.use('/audit', auditRoutes());
+  return router;
+}

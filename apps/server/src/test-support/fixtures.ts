@@ -1,0 +1,103 @@
+import { randomBytes } from 'node:crypto';
+import request from 'supertest';
+import { QueryTypes } from 'sequelize';
+import type { Role } from '@biasproof/shared';
+import { inTransaction } from '../db/transactions.ts';
+import { createPasswordHasher } from '../auth/passwords.ts';
+import { ensureAccount, ensureMembership, ensureOrganization } from '../orgs/provisioning.ts';
+import type { TestApp } from './test-app.ts';
+
+/** The password of every fixture person (long enough and not on the common list). */
+export const TEST_PASSWORD = 'violet-anode-sweep-4417';
+
+export const unique = () => randomBytes(5).toString('hex');
+export const uniqueEmail = (name: string) => `${name}.${unique()}@fixture.example`;
+
+export interface Person {
+  id: string;
+  email: string;
+  name: string;
+  password: string;
+}
+
+export interface OrgFixture {
+  org: { id: string; slug: string; name: string };
+  people: Record<string, Person>;
+}
+
+/**
+ * A fresh organization (random slug) whose members hold the given roles, e.g.
+ * `{ ada: ['admin'], ben: ['author', 'checker'] }`; people with no roles get an account only.
+ */
+export async function createOrgWithMembers(
+  t: TestApp,
+  members: Record<string, Role[]>,
+): Promise<OrgFixture> {
+  const slug = `org-${unique()}`;
+  const name = `Fixture ${slug}`;
+  const org = await ensureOrganization(t.sequelize, { slug, name, timezone: 'Europe/Berlin' });
+  const passwords = createPasswordHasher(t.config.argon2);
+  const people: Record<string, Person> = {};
+  for (const [key, roles] of Object.entries(members)) {
+    const person = {
+      email: uniqueEmail(key),
+      name: `${key[0]?.toUpperCase()}${key.slice(1)} Fixture`,
+      password: TEST_PASSWORD,
+    };
+    const { id } = await ensureAccount(t.sequelize, passwords, person);
+    if (roles.length) await ensureMembership(t.sequelize, org.id, id, roles);
+    people[key] = { id, ...person };
+  }
+  return { org: { id: org.id, slug, name }, people };
+}
+
+export interface SignedInAgent {
+  agent: ReturnType<typeof request.agent>;
+  /** The CSRF token of the agent's signed-in session. */
+  csrf: string;
+}
+
+/** An agent with an anonymous session and its CSRF token. */
+export async function anonymousAgent(t: TestApp): Promise<SignedInAgent> {
+  const agent = request.agent(t.app);
+  const res = await agent.get('/api/auth/csrf').expect(200);
+  return { agent, csrf: (res.body as { token: string }).token };
+}
+
+/** Signs a person in through the API and returns the agent with a token for its new session. */
+export async function signIn(
+  t: TestApp,
+  person: { email: string; password: string },
+): Promise<SignedInAgent> {
+  const { agent, csrf } = await anonymousAgent(t);
+  await agent
+    .post('/api/auth/sign-in')
+    .set('x-csrf-token', csrf)
+    .send({ email: person.email, password: person.password })
+    .expect(200);
+  const fresh = await agent.get('/api/auth/csrf').expect(200);
+  return { agent, csrf: (fresh.body as { token: string }).token };
+}
+
+/** Reads rows the way an operator would: in a transaction that may see every organization. */
+export async function systemRows<T extends object>(
+  t: TestApp,
+  sql: string,
+  bind: unknown[] = [],
+): Promise<T[]> {
+  return inTransaction(t.sequelize, 'system', (tx) =>
+    tx.sequelize.query<T>(sql, { bind, transaction: tx.transaction, type: QueryTypes.SELECT }),
+  );
+}
+
+/** The session id inside a signed `biasproof.sid` cookie (`s:<sid>.<signature>`). */
+export function sessionIdFromCookies(setCookie: string[] | string | undefined): string | undefined {
+  const cookies = Array.isArray(setCookie) ? setCookie : setCookie ? [setCookie] : [];
+  const raw = cookies
+    .find((c) => c.startsWith('biasproof.sid='))
+    ?.split(';')[0]
+    ?.slice('biasproof.sid='.length);
+  if (!raw) return undefined;
+  const value = decodeURIComponent(raw);
+  return value.startsWith('s:') ? value.slice(2, value.lastIndexOf('.')) : value;
+}
