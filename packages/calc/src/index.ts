@@ -14,3 +14,7 @@ export * from './small-signal.ts';
 export * from './compare.ts';
 export * from './signal-size.ts';
 export * from './load-line.ts';
+export * from './worksheet/settings.ts';
+export * from './worksheet/draft.ts';
+export * from './worksheet/compute-types.ts';
+export * from './worksheet/compute.ts';
