@@ -63,12 +63,18 @@ describe('inviting a checker who joins in a second browser', () => {
 
   async function memberNames(page: Page): Promise<string[]> {
     await page.getByRole('table', { name: /^Members of/ }).waitFor();
-    return page.getByRole('table', { name: /^Members of/ }).getByRole('rowheader').allTextContents();
+    return page
+      .getByRole('table', { name: /^Members of/ })
+      .getByRole('rowheader')
+      .allTextContents();
   }
 
   async function pendingAddresses(page: Page): Promise<string[]> {
     const section = page.getByRole('region', { name: 'Pending invitations' });
-    await section.getByText(/@|No invitation is waiting/).first().waitFor();
+    await section
+      .getByText(/@|No invitation is waiting/)
+      .first()
+      .waitFor();
     return section.getByRole('rowheader').allTextContents();
   }
 
@@ -80,7 +86,9 @@ describe('inviting a checker who joins in a second browser', () => {
     await signIn(adminPage, admin.email, admin.password);
 
     await adminPage.getByRole('heading', { level: 1, name: 'My queue' }).waitFor();
-    expect(new URL(adminPage.url()).pathname).toMatch(new RegExp(`^/o/(${kestrel.slug}|${heron.slug})$`));
+    expect(new URL(adminPage.url()).pathname).toMatch(
+      new RegExp(`^/o/(${kestrel.slug}|${heron.slug})$`),
+    );
     await expect.poll(() => adminPage.getByRole('banner').textContent()).toContain(admin.name);
   });
 
@@ -88,7 +96,10 @@ describe('inviting a checker who joins in a second browser', () => {
     await adminPage.goto(`${baseUrl()}/o/${kestrel.slug}/members`);
     await adminPage.getByRole('heading', { level: 1, name: 'Members and invitations' }).waitFor();
     expect(await memberNames(adminPage)).toEqual(
-      expect.arrayContaining([expect.stringContaining(admin.name), expect.stringContaining(kestrelAuthor.name)]),
+      expect.arrayContaining([
+        expect.stringContaining(admin.name),
+        expect.stringContaining(kestrelAuthor.name),
+      ]),
     );
     expect(await seriousViolations(adminPage)).toEqual([]);
 
@@ -97,12 +108,17 @@ describe('inviting a checker who joins in a second browser', () => {
       [stillPending, 'Approver'],
     ] as const) {
       await adminPage.getByRole('textbox', { name: 'E-mail of the person to invite' }).fill(email);
-      await adminPage.getByRole('group', { name: 'Roles' }).getByRole('checkbox', { name: role }).check();
+      await adminPage
+        .getByRole('group', { name: 'Roles' })
+        .getByRole('checkbox', { name: role })
+        .check();
       await adminPage.getByRole('button', { name: 'Send invitation' }).click();
       await adminPage.getByText(`Invitation sent to ${email}.`).waitFor();
     }
 
-    await expect.poll(() => pendingAddresses(adminPage)).toEqual(expect.arrayContaining([checker.email, stillPending]));
+    await expect
+      .poll(() => pendingAddresses(adminPage))
+      .toEqual(expect.arrayContaining([checker.email, stillPending]));
     const mail = await waitForEmail(checker.email, /invited you/);
     expect(mail.subject).toContain(kestrel.name);
   });
@@ -133,9 +149,16 @@ describe('inviting a checker who joins in a second browser', () => {
     await inviteePage.getByRole('heading', { level: 1, name: 'Members and invitations' }).waitFor();
 
     expect(await memberNames(inviteePage)).toEqual(
-      expect.arrayContaining([expect.stringContaining(admin.name), expect.stringContaining(checker.name)]),
+      expect.arrayContaining([
+        expect.stringContaining(admin.name),
+        expect.stringContaining(checker.name),
+      ]),
     );
-    expect(await inviteePage.getByRole('button', { name: /^(Change roles|Remove|Disable|Enable)/ }).count()).toBe(0);
+    expect(
+      await inviteePage
+        .getByRole('button', { name: /^(Change roles|Remove|Disable|Enable)/ })
+        .count(),
+    ).toBe(0);
     expect(await inviteePage.getByRole('heading', { name: 'Invite someone' }).count()).toBe(0);
     expect(await inviteePage.getByRole('heading', { name: 'Pending invitations' }).count()).toBe(0);
 
@@ -158,22 +181,37 @@ describe('inviting a checker who joins in a second browser', () => {
     await adminPage.reload();
     await expect
       .poll(() => memberNames(adminPage))
-      .toEqual(expect.arrayContaining([expect.stringContaining(checker.name), expect.stringContaining(kestrelAuthor.name)]));
+      .toEqual(
+        expect.arrayContaining([
+          expect.stringContaining(checker.name),
+          expect.stringContaining(kestrelAuthor.name),
+        ]),
+      );
     expect(await pendingAddresses(adminPage)).toEqual([stillPending]);
 
     await adminPage.getByRole('button', { name: `Organization: ${kestrel.name}` }).click();
-    await adminPage.getByRole('list', { name: 'Your organizations' }).getByRole('link', { name: heron.name }).click();
+    await adminPage
+      .getByRole('list', { name: 'Your organizations' })
+      .getByRole('link', { name: heron.name })
+      .click();
 
     await adminPage.waitForURL(`${baseUrl()}/o/${heron.slug}/members`);
     await adminPage.getByRole('heading', { name: `Members of ${heron.name}` }).waitFor();
     const heronMembers = await memberNames(adminPage);
-    expect(heronMembers).toEqual(expect.arrayContaining([expect.stringContaining(heronAuthor.name)]));
+    expect(heronMembers).toEqual(
+      expect.arrayContaining([expect.stringContaining(heronAuthor.name)]),
+    );
     expect(heronMembers.join(' ')).not.toMatch(new RegExp(`${kestrelAuthor.name}|${checker.name}`));
     expect(await pendingAddresses(adminPage)).toEqual([]);
 
     await adminPage.getByRole('button', { name: `Organization: ${heron.name}` }).click();
-    await adminPage.getByRole('list', { name: 'Your organizations' }).getByRole('link', { name: kestrel.name }).click();
+    await adminPage
+      .getByRole('list', { name: 'Your organizations' })
+      .getByRole('link', { name: kestrel.name })
+      .click();
     await adminPage.waitForURL(`${baseUrl()}/o/${kestrel.slug}/members`);
-    await expect.poll(() => memberNames(adminPage)).toEqual(expect.arrayContaining([expect.stringContaining(kestrelAuthor.name)]));
+    await expect
+      .poll(() => memberNames(adminPage))
+      .toEqual(expect.arrayContaining([expect.stringContaining(kestrelAuthor.name)]));
   });
 });

@@ -2,7 +2,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { seriousViolations } from '../support/axe.ts';
 import { baseUrl, openBrowser, type BrowserSession } from '../support/browser.ts';
-import { addMembership, createOrganization, createPerson, uniqueSuffix, type FixtureOrg, type FixturePerson } from '../support/fixtures.ts';
+import {
+  addMembership,
+  createOrganization,
+  createPerson,
+  uniqueSuffix,
+  type FixtureOrg,
+  type FixturePerson,
+} from '../support/fixtures.ts';
 import { linkIn, waitForEmail } from '../support/maildev.ts';
 
 // Issue 4's "done when": a person resets a forgotten password and signs in, in the browser alone.

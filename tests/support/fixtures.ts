@@ -53,7 +53,10 @@ async function inSystemScope<T>(fn: (client: pg.Client) => Promise<T>): Promise<
 }
 
 export async function createOrganization(name: string): Promise<FixtureOrg> {
-  const slug = `${name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '')}-${uniqueSuffix()}`;
+  const slug = `${name
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '')}-${uniqueSuffix()}`;
   return inSystemScope(async (db) => {
     const { rows } = await db.query<{ id: string }>(
       'INSERT INTO organizations (slug, name, timezone) VALUES ($1, $2, $3) RETURNING id',
@@ -76,8 +79,16 @@ export async function createPerson(name: string, domain: string): Promise<Fixtur
   });
 }
 
-export async function addMembership(org: FixtureOrg, person: FixturePerson, roles: Role[]): Promise<void> {
+export async function addMembership(
+  org: FixtureOrg,
+  person: FixturePerson,
+  roles: Role[],
+): Promise<void> {
   await inSystemScope((db) =>
-    db.query('INSERT INTO memberships (org_id, user_id, roles) VALUES ($1, $2, $3)', [org.id, person.id, roles]),
+    db.query('INSERT INTO memberships (org_id, user_id, roles) VALUES ($1, $2, $3)', [
+      org.id,
+      person.id,
+      roles,
+    ]),
   );
 }

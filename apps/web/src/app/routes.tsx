@@ -12,6 +12,7 @@ import { AcceptInvitationPage } from '@/features/invitations/components/accept-i
 import { MembersPage } from '@/features/members/components/members-page.tsx';
 import { ProfilePage } from '@/features/profile/components/profile-page.tsx';
 import { MyQueuePage } from '@/features/queue/components/my-queue-page.tsx';
+import { worksheetRoutes } from '@/features/worksheets/worksheet-routes.tsx';
 
 /** The route table; the browser router and the tests' memory routers are built from it. */
 export const routes: RouteObject[] = [
@@ -34,6 +35,7 @@ export const routes: RouteObject[] = [
             children: [
               { index: true, element: <MyQueuePage /> },
               { path: 'members', element: <MembersPage /> },
+              ...worksheetRoutes,
             ],
           },
         ],

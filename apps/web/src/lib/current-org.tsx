@@ -11,7 +11,13 @@ export interface CurrentOrg {
 const CurrentOrgContext = createContext<CurrentOrg | null>(null);
 
 /** Wraps the pages of one organization: who is acting, where, and what they may do there. */
-export function CurrentOrgProvider({ value, children }: { value: CurrentOrg; children: ReactNode }) {
+export function CurrentOrgProvider({
+  value,
+  children,
+}: {
+  value: CurrentOrg;
+  children: ReactNode;
+}) {
   return (
     <CurrentOrgContext value={value}>
       <OrgAbilityProvider userId={value.user.id} roles={value.membership.roles}>

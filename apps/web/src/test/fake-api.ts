@@ -24,7 +24,12 @@ export type FakeRoutes = Record<string, FakeRoute>;
 
 export const CSRF_TOKEN = 'csrf-token-of-this-session';
 
-export function apiError(status: number, code: string, message: string, fields?: Record<string, string>): FakeAnswer {
+export function apiError(
+  status: number,
+  code: string,
+  message: string,
+  fields?: Record<string, string>,
+): FakeAnswer {
   return { status, body: { error: { code, message, ...(fields ? { fields } : {}) } } };
 }
 
@@ -65,14 +70,23 @@ export function stubApi(routes: FakeRoutes) {
     for (const [pattern, route] of Object.entries(all)) {
       const params = match(pattern, method, url.pathname);
       if (!params) continue;
-      const request = { method, path: url.pathname, query: url.searchParams, params, headers, body };
+      const request = {
+        method,
+        path: url.pathname,
+        query: url.searchParams,
+        params,
+        headers,
+        body,
+      };
       requests.push(request);
       const answer = await route(request);
       return answer.body === undefined
         ? new Response(null, { status: answer.status })
         : jsonResponse(answer.status, answer.body);
     }
-    return jsonResponse(404, { error: { code: 'not-found', message: `No route ${method} ${url.pathname}` } });
+    return jsonResponse(404, {
+      error: { code: 'not-found', message: `No route ${method} ${url.pathname}` },
+    });
   });
   vi.stubGlobal('fetch', fetchMock);
   return {
@@ -90,7 +104,10 @@ export const orgs = {
   quartz: { orgId: 'org-quartz', orgSlug: 'quartz-works', orgName: 'Quartz Works' },
 };
 
-export function meOf(overrides: Partial<MeResponse['user']>, memberships: MeResponse['memberships']): MeResponse {
+export function meOf(
+  overrides: Partial<MeResponse['user']>,
+  memberships: MeResponse['memberships'],
+): MeResponse {
   return {
     user: { id: 'user-ines', email: 'ines@resonant.example', name: 'Ines Okafor', ...overrides },
     memberships,
@@ -107,7 +124,9 @@ export function aMember(overrides: Partial<Member> & Pick<Member, 'userId' | 'na
   };
 }
 
-export function anInvitation(overrides: Partial<Invitation> & Pick<Invitation, 'id' | 'email'>): Invitation {
+export function anInvitation(
+  overrides: Partial<Invitation> & Pick<Invitation, 'id' | 'email'>,
+): Invitation {
   return {
     roles: ['checker'],
     invitedBy: { id: 'user-ines', name: 'Ines Okafor' },

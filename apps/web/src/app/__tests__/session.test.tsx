@@ -11,7 +11,10 @@ describe('session', () => {
     const user = userEvent.setup();
     let sessionAlive = true;
     stubApi({
-      'GET /api/auth/me': () => (sessionAlive ? { status: 200, body: ines } : apiError(401, 'unauthenticated', 'Sign in first.')),
+      'GET /api/auth/me': () =>
+        sessionAlive
+          ? { status: 200, body: ines }
+          : apiError(401, 'unauthenticated', 'Sign in first.'),
       'GET /api/orgs/:orgId/members': () => {
         if (!sessionAlive) return apiError(401, 'unauthenticated', 'Sign in first.');
         return { status: 200, body: list([aMember({ userId: 'user-ines', name: 'Ines Okafor' })]) };
@@ -30,14 +33,18 @@ describe('session', () => {
 
     expect(await screen.findByRole('heading', { level: 1, name: 'Sign in' })).toBeDefined();
     expect(router.state.location.pathname).toBe('/sign-in');
-    expect(new URLSearchParams(router.state.location.search).get('next')).toBe('/o/resonant-labs/members');
+    expect(new URLSearchParams(router.state.location.search).get('next')).toBe(
+      '/o/resonant-labs/members',
+    );
     expect(within(screen.getByRole('banner')).getByRole('link', { name: 'Sign in' })).toBeDefined();
 
     await user.type(screen.getByRole('textbox', { name: 'E-mail' }), 'ines@resonant.example');
     await user.type(screen.getByLabelText('Password'), 'tunnel-diode-bias');
     await user.click(screen.getByRole('button', { name: 'Sign in' }));
 
-    expect(await screen.findByRole('heading', { level: 1, name: 'Members and invitations' })).toBeDefined();
+    expect(
+      await screen.findByRole('heading', { level: 1, name: 'Members and invitations' }),
+    ).toBeDefined();
     expect(router.state.location.pathname).toBe('/o/resonant-labs/members');
     expect(await screen.findByRole('rowheader', { name: /Ines Okafor/ })).toBeDefined();
   });
@@ -47,7 +54,9 @@ describe('session', () => {
     const { router } = renderApp('/o/resonant-labs/members');
 
     expect(await screen.findByRole('heading', { level: 1, name: 'Sign in' })).toBeDefined();
-    expect(router.state.location.search).toBe(`?next=${encodeURIComponent('/o/resonant-labs/members')}`);
+    expect(router.state.location.search).toBe(
+      `?next=${encodeURIComponent('/o/resonant-labs/members')}`,
+    );
     expect(screen.getByText('Sign in to continue where you were.')).toBeDefined();
   });
 
@@ -55,14 +64,17 @@ describe('session', () => {
     stubApi({ 'GET /api/auth/me': () => ({ status: 200, body: ines }) });
     renderApp('/o/someone-elses-org/members');
 
-    expect(await screen.findByRole('heading', { level: 1, name: 'No page at this address' })).toBeDefined();
+    expect(
+      await screen.findByRole('heading', { level: 1, name: 'No page at this address' }),
+    ).toBeDefined();
   });
 
   it('when the person signs out, then the header offers sign-in and organization pages need a session again', async () => {
     const user = userEvent.setup();
     let signedIn = true;
     const api = stubApi({
-      'GET /api/auth/me': () => (signedIn ? { status: 200, body: ines } : apiError(401, 'unauthenticated', 'Sign in first.')),
+      'GET /api/auth/me': () =>
+        signedIn ? { status: 200, body: ines } : apiError(401, 'unauthenticated', 'Sign in first.'),
       'GET /api/orgs/org-resonant/members': () => ({ status: 200, body: list([]) }),
       'GET /api/orgs/org-resonant/invitations': () => ({ status: 200, body: list([]) }),
       'POST /api/auth/sign-out': () => {
@@ -79,6 +91,8 @@ describe('session', () => {
     expect(router.state.location.pathname).toBe('/sign-in');
     expect(router.state.location.search).toBe('');
     expect(api.requestsTo('POST /api/auth/sign-out')).toHaveLength(1);
-    expect(within(screen.getByRole('banner')).queryByRole('button', { name: 'Sign out' })).toBeNull();
+    expect(
+      within(screen.getByRole('banner')).queryByRole('button', { name: 'Sign out' }),
+    ).toBeNull();
   });
 });

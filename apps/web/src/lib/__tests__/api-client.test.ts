@@ -17,7 +17,10 @@ describe('api client CSRF handling', () => {
     await apiRequest('/things', okSchema, { method: 'POST', body: {} });
 
     expect(api.requestsTo('GET /api/auth/csrf')).toHaveLength(1);
-    expect(api.requestsTo('POST /api/things').map((r) => r.headers['x-csrf-token'])).toEqual(['token-1', 'token-1']);
+    expect(api.requestsTo('POST /api/things').map((r) => r.headers['x-csrf-token'])).toEqual([
+      'token-1',
+      'token-1',
+    ]);
   });
 
   it('when the server rejects the token (403 csrf), then a fresh token is fetched and the request retried once', async () => {
@@ -30,7 +33,9 @@ describe('api client CSRF handling', () => {
           : apiError(403, 'csrf', 'The form expired; reload the page.'),
     });
 
-    await expect(apiRequest('/things', okSchema, { method: 'POST', body: {} })).resolves.toEqual({ ok: true });
+    await expect(apiRequest('/things', okSchema, { method: 'POST', body: {} })).resolves.toEqual({
+      ok: true,
+    });
     expect(api.requestsTo('POST /api/things')).toHaveLength(2);
   });
 
@@ -65,6 +70,9 @@ describe('api client CSRF handling', () => {
     forgetCsrfToken();
     await apiRequest('/things', okSchema, { method: 'POST' });
 
-    expect(api.requestsTo('POST /api/things').map((r) => r.headers['x-csrf-token'])).toEqual(['token-1', 'token-2']);
+    expect(api.requestsTo('POST /api/things').map((r) => r.headers['x-csrf-token'])).toEqual([
+      'token-1',
+      'token-2',
+    ]);
   });
 });

@@ -54,7 +54,9 @@ export function ResetPasswordPage() {
   if (!passwordResetConfirmSchema.shape.token.safeParse(token).success) {
     return (
       <FormPage title="Choose a new password">
-        <ErrorMessage>This reset link is not complete. Open the link from the e-mail again.</ErrorMessage>
+        <ErrorMessage>
+          This reset link is not complete. Open the link from the e-mail again.
+        </ErrorMessage>
         <p className="text-sm">
           <TextLink to="/forgot-password">Ask for a new link</TextLink>
         </p>

@@ -14,7 +14,10 @@ export type AcceptInvitationRequest = z.input<typeof acceptInvitationRequestSche
  * POST /api/invitations/:token/accept. A new person sends name and password and is signed in;
  * a person signed in with the invited address sends `{}` and joins with that account.
  */
-export function acceptInvitation(token: string, body: AcceptInvitationRequest): Promise<MeResponse> {
+export function acceptInvitation(
+  token: string,
+  body: AcceptInvitationRequest,
+): Promise<MeResponse> {
   return apiRequest(`/invitations/${encodeURIComponent(token)}/accept`, meResponseSchema, {
     method: 'POST',
     body,

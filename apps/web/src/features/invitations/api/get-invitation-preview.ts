@@ -6,7 +6,10 @@ import { apiRequest } from '@/lib/api-client.ts';
 export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
 
 /** GET /api/invitations/:token (public): what the invitee is asked to join. */
-export function getInvitationPreview(token: string, signal?: AbortSignal): Promise<InvitationPreview> {
+export function getInvitationPreview(
+  token: string,
+  signal?: AbortSignal,
+): Promise<InvitationPreview> {
   return apiRequest(`/invitations/${encodeURIComponent(token)}`, invitationPreviewSchema, {
     unauthorizedIsAnswer: true,
     ...(signal ? { signal } : {}),

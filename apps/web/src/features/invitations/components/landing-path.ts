@@ -12,7 +12,9 @@ export function joinedOrgPath(
   previousOrgIds: readonly string[] = [],
 ): string {
   const joined =
-    me.memberships.find((m) => !previousOrgIds.includes(m.orgId) && m.orgName === invitation.orgName) ??
+    me.memberships.find(
+      (m) => !previousOrgIds.includes(m.orgId) && m.orgName === invitation.orgName,
+    ) ??
     me.memberships.find((m) => !previousOrgIds.includes(m.orgId)) ??
     me.memberships.find((m) => m.orgName === invitation.orgName) ??
     me.memberships[0];

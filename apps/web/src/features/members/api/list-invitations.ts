@@ -7,7 +7,11 @@ const invitationsListSchema = listResponseSchema(invitationSchema);
 export type InvitationStatusFilter = 'pending' | 'all';
 
 /** GET /api/orgs/:orgId/invitations?status=… (admin) → `{items,total}`. */
-export function listInvitations(orgId: string, status: InvitationStatusFilter, signal?: AbortSignal) {
+export function listInvitations(
+  orgId: string,
+  status: InvitationStatusFilter,
+  signal?: AbortSignal,
+) {
   return apiRequest(
     `/orgs/${encodeURIComponent(orgId)}/invitations?status=${status}`,
     invitationsListSchema,

@@ -15,6 +15,7 @@ export function useRemoveMember(orgId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (userId: string) => removeMember(orgId, userId),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: membersQueryOptions(orgId).queryKey }),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: membersQueryOptions(orgId).queryKey }),
   });
 }

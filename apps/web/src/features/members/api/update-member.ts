@@ -7,7 +7,11 @@ import { membersQueryOptions } from '@/features/members/api/list-members.ts';
 export type UpdateMemberRequest = z.output<typeof updateMemberRequestSchema>;
 
 /** PATCH /api/orgs/:orgId/members/:userId: new roles and/or disabled; 409 `last-admin`. */
-export function updateMember(orgId: string, userId: string, body: UpdateMemberRequest): Promise<Member> {
+export function updateMember(
+  orgId: string,
+  userId: string,
+  body: UpdateMemberRequest,
+): Promise<Member> {
   return apiRequest(
     `/orgs/${encodeURIComponent(orgId)}/members/${encodeURIComponent(userId)}`,
     memberSchema,
@@ -20,6 +24,7 @@ export function useUpdateMember(orgId: string) {
   return useMutation({
     mutationFn: ({ userId, ...body }: UpdateMemberRequest & { userId: string }) =>
       updateMember(orgId, userId, body),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: membersQueryOptions(orgId).queryKey }),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: membersQueryOptions(orgId).queryKey }),
   });
 }

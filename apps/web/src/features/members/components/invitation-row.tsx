@@ -17,7 +17,13 @@ interface InvitationRowProps {
 
 const dateFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 
-export function InvitationRow({ orgId, invitation, canResend, canRevoke, onFeedback }: InvitationRowProps) {
+export function InvitationRow({
+  orgId,
+  invitation,
+  canResend,
+  canRevoke,
+  onFeedback,
+}: InvitationRowProps) {
   const resend = useResendInvitation(orgId);
   const revoke = useRevokeInvitation(orgId);
   const [asking, setAsking] = useState(false);

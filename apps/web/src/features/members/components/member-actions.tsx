@@ -16,7 +16,14 @@ interface MemberActionsProps {
 }
 
 /** Disable/enable and remove, each destructive step confirmed first. */
-export function MemberActions({ orgId, orgName, member, canUpdate, canDelete, onFeedback }: MemberActionsProps) {
+export function MemberActions({
+  orgId,
+  orgName,
+  member,
+  canUpdate,
+  canDelete,
+  onFeedback,
+}: MemberActionsProps) {
   const update = useUpdateMember(orgId);
   const remove = useRemoveMember(orgId);
   const [asking, setAsking] = useState<'disable' | 'remove' | null>(null);

@@ -19,7 +19,14 @@ interface MemberRowProps {
 
 const dateFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' });
 
-export function MemberRow({ orgId, orgName, member, isYou, showActions, onFeedback }: MemberRowProps) {
+export function MemberRow({
+  orgId,
+  orgName,
+  member,
+  isYou,
+  showActions,
+  onFeedback,
+}: MemberRowProps) {
   const ability = useAppAbility();
   const target = subject('Member', { userId: member.userId, roles: [...member.roles] });
   const canUpdate = ability.can('update', target);

@@ -13,7 +13,12 @@ interface RoleCheckboxesProps {
 }
 
 /** One checkbox per role, each described by what the role may do. */
-export function RoleCheckboxes({ legend, registration, error, compact = false }: RoleCheckboxesProps) {
+export function RoleCheckboxes({
+  legend,
+  registration,
+  error,
+  compact = false,
+}: RoleCheckboxesProps) {
   const id = useId();
   return (
     <fieldset aria-describedby={error ? `${id}-error` : undefined} className="min-w-0">
@@ -35,10 +40,7 @@ export function RoleCheckboxes({ legend, registration, error, compact = false }:
               <label htmlFor={`${id}-${role}`} className="font-semibold text-ink-900">
                 {roleLabel(role)}
               </label>
-              <p
-                id={`${id}-${role}-help`}
-                className={compact ? 'sr-only' : 'text-sm text-ink-600'}
-              >
+              <p id={`${id}-${role}-help`} className={compact ? 'sr-only' : 'text-sm text-ink-600'}>
                 {roleDescriptions[role]}
               </p>
             </div>

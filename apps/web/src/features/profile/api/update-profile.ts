@@ -1,6 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
-import { meResponseSchema, type MeResponse, type updateProfileRequestSchema } from '@biasproof/shared';
+import {
+  meResponseSchema,
+  type MeResponse,
+  type updateProfileRequestSchema,
+} from '@biasproof/shared';
 import { apiRequest } from '@/lib/api-client.ts';
 import { meQueryOptions } from '@/lib/session.ts';
 

@@ -6,7 +6,10 @@ import { updateProfileRequestSchema } from '@biasproof/shared';
 import { Button } from '@/components/ui/button.tsx';
 import { ErrorMessage, SuccessMessage } from '@/components/ui/message.tsx';
 import { TextField } from '@/components/ui/text-field.tsx';
-import { useUpdateProfile, type UpdateProfileRequest } from '@/features/profile/api/update-profile.ts';
+import {
+  useUpdateProfile,
+  type UpdateProfileRequest,
+} from '@/features/profile/api/update-profile.ts';
 import { applyServerErrors } from '@/lib/form-errors.ts';
 
 type NameFormInput = z.input<typeof updateProfileRequestSchema>;

@@ -29,7 +29,9 @@ export function MyQueuePage() {
           <h2 id="queue-empty-heading" className="text-lg font-semibold text-ink-900">
             Nothing waits for you right now
           </h2>
-          <p className="text-ink-700">When there is work for you in {membership.orgName}, it lands here:</p>
+          <p className="text-ink-700">
+            When there is work for you in {membership.orgName}, it lands here:
+          </p>
           <ul className="list-disc pl-6 text-ink-700">
             {membership.roles.map((role) => (
               <li key={role}>{waitingFor[role]}</li>

@@ -16,7 +16,9 @@ describe('reset password', () => {
     await user.type(screen.getByLabelText('Repeat the new password'), 'quiescent-point-42');
     await user.click(screen.getByRole('button', { name: 'Set new password' }));
 
-    expect(await screen.findByRole('heading', { level: 1, name: 'Password changed' })).toBeDefined();
+    expect(
+      await screen.findByRole('heading', { level: 1, name: 'Password changed' }),
+    ).toBeDefined();
     expect(api.requestsTo('POST /api/auth/password-reset/confirm')[0]?.body).toEqual({
       token,
       password: 'quiescent-point-42',
@@ -27,7 +29,8 @@ describe('reset password', () => {
   it('when the link was used already, then the server’s message shows with a way to ask for a new one', async () => {
     const user = userEvent.setup();
     stubApi({
-      'POST /api/auth/password-reset/confirm': () => apiError(400, 'reset-used', 'This reset link was used already.'),
+      'POST /api/auth/password-reset/confirm': () =>
+        apiError(400, 'reset-used', 'This reset link was used already.'),
     });
     renderApp(`/reset-password?token=${token}`);
 
@@ -35,7 +38,9 @@ describe('reset password', () => {
     await user.type(screen.getByLabelText('Repeat the new password'), 'quiescent-point-42');
     await user.click(screen.getByRole('button', { name: 'Set new password' }));
 
-    expect((await screen.findByRole('alert')).textContent).toMatch(/This reset link was used already\./);
+    expect((await screen.findByRole('alert')).textContent).toMatch(
+      /This reset link was used already\./,
+    );
     expect(screen.getByRole('link', { name: 'Ask for a new link' })).toBeDefined();
   });
 

@@ -14,11 +14,16 @@ const ines = meOf({}, [
 function signInServer() {
   let signedIn = false;
   return stubApi({
-    'GET /api/auth/me': () => (signedIn ? { status: 200, body: ines } : apiError(401, 'unauthenticated', 'Sign in first.')),
+    'GET /api/auth/me': () =>
+      signedIn ? { status: 200, body: ines } : apiError(401, 'unauthenticated', 'Sign in first.'),
     'POST /api/auth/sign-in': ({ body }) => {
       const { email, password } = signInRequestSchema.parse(body);
       if (email !== ines.user.email || password !== 'tunnel-diode-bias') {
-        return apiError(401, 'invalid-credentials', 'That e-mail and password do not match an account.');
+        return apiError(
+          401,
+          'invalid-credentials',
+          'That e-mail and password do not match an account.',
+        );
       }
       signedIn = true;
       return { status: 200, body: ines };
@@ -38,7 +43,10 @@ describe('sign-in', () => {
     await user.type(screen.getByLabelText('Password'), 'a password');
     await user.click(screen.getByRole('button', { name: 'Sign in' }));
 
-    const email = await screen.findByRole('textbox', { name: 'E-mail', description: /valid e-mail address/i });
+    const email = await screen.findByRole('textbox', {
+      name: 'E-mail',
+      description: /valid e-mail address/i,
+    });
     expect(email.getAttribute('aria-invalid')).toBe('true');
     expect(screen.getByLabelText('Password').getAttribute('aria-invalid')).toBeNull();
     expect(api.requestsTo('POST /api/auth/sign-in')).toHaveLength(0);
@@ -111,11 +119,16 @@ describe('sign-in', () => {
     renderApp('/sign-in');
 
     await user.click(screen.getByRole('link', { name: 'Forgot your password?' }));
-    await user.type(await screen.findByRole('textbox', { name: 'E-mail' }), 'Nobody@Resonant.example');
+    await user.type(
+      await screen.findByRole('textbox', { name: 'E-mail' }),
+      'Nobody@Resonant.example',
+    );
     await user.click(screen.getByRole('button', { name: 'Send reset link' }));
 
     expect(await screen.findByText(/If an account uses this address/)).toBeDefined();
     expect(screen.getByRole('heading', { level: 1, name: 'Check your e-mail' })).toBeDefined();
-    expect(api.requestsTo('POST /api/auth/password-reset')[0]?.body).toEqual({ email: 'nobody@resonant.example' });
+    expect(api.requestsTo('POST /api/auth/password-reset')[0]?.body).toEqual({
+      email: 'nobody@resonant.example',
+    });
   });
 });

@@ -24,18 +24,23 @@ describe('accepting an invitation', () => {
     const user = userEvent.setup();
     let me: MeResponse | null = null;
     const api = stubApi({
-      'GET /api/auth/me': () => (me ? { status: 200, body: me } : apiError(401, 'unauthenticated', 'Sign in first.')),
+      'GET /api/auth/me': () =>
+        me ? { status: 200, body: me } : apiError(401, 'unauthenticated', 'Sign in first.'),
       'GET /api/invitations/:token': () => ({ status: 200, body: preview(false) }),
       'POST /api/invitations/:token/accept': ({ body }) => {
         const { name } = acceptInvitationNewAccountSchema.parse(body);
-        me = meOf({ id: 'user-kwame', email: 'kwame@resonant.example', name }, [{ ...orgs.resonant, roles: ['checker'] }]);
+        me = meOf({ id: 'user-kwame', email: 'kwame@resonant.example', name }, [
+          { ...orgs.resonant, roles: ['checker'] },
+        ]);
         return { status: 200, body: me };
       },
       'GET /api/orgs/org-resonant/members': () => ({ status: 200, body: list([]) }),
     });
     const { router } = renderApp(invitePath);
 
-    expect(await screen.findByRole('heading', { level: 1, name: 'Join Resonant Labs' })).toBeDefined();
+    expect(
+      await screen.findByRole('heading', { level: 1, name: 'Join Resonant Labs' }),
+    ).toBeDefined();
     expect(screen.getByText(/Ines Okafor invited/)).toBeDefined();
     expect(screen.getByText('Checker')).toBeDefined();
     expect(screen.getByText(/Reviews submitted revisions/)).toBeDefined();
@@ -56,7 +61,9 @@ describe('accepting an invitation', () => {
 
     expect(await screen.findByRole('heading', { level: 1, name: 'My queue' })).toBeDefined();
     expect(router.state.location.pathname).toBe('/o/resonant-labs');
-    expect(within(screen.getByRole('banner')).getByRole('link', { name: /Kwame Mensah/ })).toBeDefined();
+    expect(
+      within(screen.getByRole('banner')).getByRole('link', { name: /Kwame Mensah/ }),
+    ).toBeDefined();
     const [accepted] = api.requestsTo(`POST /api/invitations/${token}/accept`);
     expect(accepted?.headers['x-csrf-token']).toBe(CSRF_TOKEN);
     expect(accepted?.body).toEqual({ name: 'Kwame Mensah', password: 'gain-bandwidth-product' });
@@ -69,7 +76,9 @@ describe('accepting an invitation', () => {
     });
     renderApp(invitePath);
 
-    expect((await screen.findByRole('alert')).textContent).toBe('This invitation expired. Ask for a new one.');
+    expect((await screen.findByRole('alert')).textContent).toBe(
+      'This invitation expired. Ask for a new one.',
+    );
     expect(screen.queryByRole('button', { name: /join/i })).toBeNull();
   });
 
@@ -84,15 +93,19 @@ describe('accepting an invitation', () => {
 
   it('when the invited person is signed in, then one button joins with an empty body', async () => {
     const user = userEvent.setup();
-    const before = meOf({ id: 'user-kwame', email: 'kwame@resonant.example', name: 'Kwame Mensah' }, [
-      { ...orgs.quartz, roles: ['author'] },
-    ]);
+    const before = meOf(
+      { id: 'user-kwame', email: 'kwame@resonant.example', name: 'Kwame Mensah' },
+      [{ ...orgs.quartz, roles: ['author'] }],
+    );
     let me = before;
     const api = stubApi({
       'GET /api/auth/me': () => ({ status: 200, body: me }),
       'GET /api/invitations/:token': () => ({ status: 200, body: preview(true) }),
       'POST /api/invitations/:token/accept': () => {
-        me = { ...before, memberships: [...before.memberships, { ...orgs.resonant, roles: ['checker'] }] };
+        me = {
+          ...before,
+          memberships: [...before.memberships, { ...orgs.resonant, roles: ['checker'] }],
+        };
         return { status: 200, body: me };
       },
     });
@@ -107,7 +120,10 @@ describe('accepting an invitation', () => {
 
   it('when someone else is signed in, then the page says whose invitation it is', async () => {
     stubApi({
-      'GET /api/auth/me': () => ({ status: 200, body: meOf({}, [{ ...orgs.resonant, roles: ['admin'] }]) }),
+      'GET /api/auth/me': () => ({
+        status: 200,
+        body: meOf({}, [{ ...orgs.resonant, roles: ['admin'] }]),
+      }),
       'GET /api/invitations/:token': () => ({ status: 200, body: preview(true) }),
     });
     renderApp(invitePath);

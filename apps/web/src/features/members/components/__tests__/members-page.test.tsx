@@ -37,7 +37,11 @@ function resonantServer(roles: Role[]) {
     'PATCH /api/orgs/org-resonant/members/:userId': ({ params, body }) => {
       const change = updateMemberRequestSchema.parse(body);
       if (change.roles && params.userId === 'user-priya' && !change.roles.includes('admin')) {
-        return apiError(409, 'last-admin', 'The organization needs at least one other admin first.');
+        return apiError(
+          409,
+          'last-admin',
+          'The organization needs at least one other admin first.',
+        );
       }
       members = members.map((m) => (m.userId === params.userId ? { ...m, ...change } : m));
       return { status: 200, body: members.find((m) => m.userId === params.userId) };
@@ -50,9 +54,15 @@ function resonantServer(roles: Role[]) {
     'POST /api/orgs/org-resonant/invitations': ({ body }) => {
       const { email, roles: invitedRoles } = createInvitationRequestSchema.parse(body);
       if (members.some((m) => m.email === email)) {
-        return apiError(409, 'already-member', 'This person is already a member.', { email: 'Already a member of Resonant Labs.' });
+        return apiError(409, 'already-member', 'This person is already a member.', {
+          email: 'Already a member of Resonant Labs.',
+        });
       }
-      const created = anInvitation({ id: `inv-${invitations.length + 1}`, email, roles: invitedRoles });
+      const created = anInvitation({
+        id: `inv-${invitations.length + 1}`,
+        email,
+        roles: invitedRoles,
+      });
       invitations = [...invitations, created];
       return { status: 201, body: created };
     },
@@ -78,7 +88,9 @@ describe('members and invitations page', () => {
     renderApp(membersPath);
 
     expect(await screen.findByRole('rowheader', { name: /Tomas Lindqvist/ })).toBeDefined();
-    expect(screen.getByRole('heading', { level: 1, name: 'Members and invitations' })).toBeDefined();
+    expect(
+      screen.getByRole('heading', { level: 1, name: 'Members and invitations' }),
+    ).toBeDefined();
     expect(screen.getByRole('heading', { name: 'Members of Resonant Labs' })).toBeDefined();
     expect(screen.queryByRole('button', { name: /change roles/i })).toBeNull();
     expect(screen.queryByRole('button', { name: /remove/i })).toBeNull();
@@ -94,8 +106,14 @@ describe('members and invitations page', () => {
     renderApp(membersPath);
 
     await screen.findByRole('rowheader', { name: /Tomas Lindqvist/ });
-    expect(within(rowOf(/Tomas Lindqvist/)).getByRole('button', { name: 'Change roles of Tomas Lindqvist' })).toBeDefined();
-    expect(within(rowOf(/Tomas Lindqvist/)).getByRole('button', { name: 'Remove Tomas Lindqvist' })).toBeDefined();
+    expect(
+      within(rowOf(/Tomas Lindqvist/)).getByRole('button', {
+        name: 'Change roles of Tomas Lindqvist',
+      }),
+    ).toBeDefined();
+    expect(
+      within(rowOf(/Tomas Lindqvist/)).getByRole('button', { name: 'Remove Tomas Lindqvist' }),
+    ).toBeDefined();
     expect(within(rowOf(/Ines Okafor/)).queryAllByRole('button')).toHaveLength(0);
     expect(within(rowOf(/Ines Okafor/)).getByText('(you)')).toBeDefined();
     expect(await screen.findByRole('rowheader', { name: 'kofi@resonant.example' })).toBeDefined();
@@ -124,8 +142,14 @@ describe('members and invitations page', () => {
     const api = resonantServer(['admin']);
     renderApp(membersPath);
 
-    await user.type(await screen.findByRole('textbox', { name: 'E-mail of the person to invite' }), 'Kwame@Resonant.example');
-    const checker = screen.getByRole('checkbox', { name: 'Checker', description: /Reviews submitted revisions/ });
+    await user.type(
+      await screen.findByRole('textbox', { name: 'E-mail of the person to invite' }),
+      'Kwame@Resonant.example',
+    );
+    const checker = screen.getByRole('checkbox', {
+      name: 'Checker',
+      description: /Reviews submitted revisions/,
+    });
     await user.click(checker);
     await user.click(screen.getByRole('button', { name: 'Send invitation' }));
 
@@ -134,7 +158,10 @@ describe('members and invitations page', () => {
     expect(posted?.headers['x-csrf-token']).toBe(CSRF_TOKEN);
     expect(posted?.body).toEqual({ email: 'kwame@resonant.example', roles: ['checker'] });
     expect(await screen.findByRole('rowheader', { name: 'kwame@resonant.example' })).toBeDefined();
-    expect(screen.getByRole<HTMLInputElement>('textbox', { name: 'E-mail of the person to invite' }).value).toBe('');
+    expect(
+      screen.getByRole<HTMLInputElement>('textbox', { name: 'E-mail of the person to invite' })
+        .value,
+    ).toBe('');
   });
 
   it('when the server refuses the address, then its message shows on the e-mail field', async () => {
@@ -142,12 +169,18 @@ describe('members and invitations page', () => {
     resonantServer(['admin']);
     renderApp(membersPath);
 
-    await user.type(await screen.findByRole('textbox', { name: 'E-mail of the person to invite' }), 'tomas@resonant.example');
+    await user.type(
+      await screen.findByRole('textbox', { name: 'E-mail of the person to invite' }),
+      'tomas@resonant.example',
+    );
     await user.click(screen.getByRole('checkbox', { name: 'Author' }));
     await user.click(screen.getByRole('button', { name: 'Send invitation' }));
 
     expect(
-      await screen.findByRole('textbox', { name: 'E-mail of the person to invite', description: 'Already a member of Resonant Labs.' }),
+      await screen.findByRole('textbox', {
+        name: 'E-mail of the person to invite',
+        description: 'Already a member of Resonant Labs.',
+      }),
     ).toBeDefined();
   });
 
@@ -156,9 +189,16 @@ describe('members and invitations page', () => {
     const api = resonantServer(['admin']);
     renderApp(membersPath);
 
-    await user.click(await screen.findByRole('button', { name: 'Change roles of Tomas Lindqvist' }));
-    const editor = within(rowOf(/Tomas Lindqvist/)).getByRole('group', { name: 'Roles of Tomas Lindqvist' });
-    expect(within(editor).getByRole('checkbox', { name: 'Author' })).toHaveProperty('checked', true);
+    await user.click(
+      await screen.findByRole('button', { name: 'Change roles of Tomas Lindqvist' }),
+    );
+    const editor = within(rowOf(/Tomas Lindqvist/)).getByRole('group', {
+      name: 'Roles of Tomas Lindqvist',
+    });
+    expect(within(editor).getByRole('checkbox', { name: 'Author' })).toHaveProperty(
+      'checked',
+      true,
+    );
     await user.click(within(editor).getByRole('checkbox', { name: 'Checker' }));
     await user.click(screen.getByRole('button', { name: 'Save roles' }));
 
@@ -167,8 +207,14 @@ describe('members and invitations page', () => {
       roles: ['author', 'checker'],
     });
     const chips = within(rowOf(/Tomas Lindqvist/)).getByRole('list', { name: 'Roles' });
-    expect(within(chips).getAllByRole('listitem').map((li) => li.textContent)).toEqual(['Author', 'Checker']);
-    expect(document.activeElement).toBe(screen.getByRole('button', { name: 'Change roles of Tomas Lindqvist' }));
+    expect(
+      within(chips)
+        .getAllByRole('listitem')
+        .map((li) => li.textContent),
+    ).toEqual(['Author', 'Checker']);
+    expect(document.activeElement).toBe(
+      screen.getByRole('button', { name: 'Change roles of Tomas Lindqvist' }),
+    );
   });
 
   it('when a change would leave no admin, then the server’s refusal is shown in the row', async () => {
@@ -181,7 +227,9 @@ describe('members and invitations page', () => {
     await user.click(within(editor).getByRole('checkbox', { name: 'Admin' }));
     await user.click(screen.getByRole('button', { name: 'Save roles' }));
 
-    expect((await screen.findByRole('alert')).textContent).toBe('The organization needs at least one other admin first.');
+    expect((await screen.findByRole('alert')).textContent).toBe(
+      'The organization needs at least one other admin first.',
+    );
     expect(screen.getByRole('group', { name: 'Roles of Priya Raman' })).toBeDefined();
   });
 
@@ -191,7 +239,9 @@ describe('members and invitations page', () => {
     renderApp(membersPath);
 
     await user.click(await screen.findByRole('button', { name: 'Remove Tomas Lindqvist' }));
-    const dialog = screen.getByRole('alertdialog', { name: 'Remove Tomas Lindqvist from Resonant Labs?' });
+    const dialog = screen.getByRole('alertdialog', {
+      name: 'Remove Tomas Lindqvist from Resonant Labs?',
+    });
     expect(document.activeElement).toBe(within(dialog).getByRole('button', { name: 'Cancel' }));
     await user.click(within(dialog).getByRole('button', { name: 'Cancel' }));
     expect(screen.queryByRole('alertdialog')).toBeNull();
@@ -200,9 +250,15 @@ describe('members and invitations page', () => {
     await user.click(screen.getByRole('button', { name: 'Remove Tomas Lindqvist' }));
     await user.click(screen.getByRole('button', { name: 'Remove member' }));
 
-    expect(await screen.findByText('Tomas Lindqvist was removed from Resonant Labs.')).toBeDefined();
+    expect(
+      await screen.findByText('Tomas Lindqvist was removed from Resonant Labs.'),
+    ).toBeDefined();
     expect(screen.queryByRole('rowheader', { name: /Tomas Lindqvist/ })).toBeNull();
-    expect(api.requestsTo('DELETE /api/orgs/org-resonant/members/user-tomas')[0]?.headers['x-csrf-token']).toBe(CSRF_TOKEN);
+    expect(
+      api.requestsTo('DELETE /api/orgs/org-resonant/members/user-tomas')[0]?.headers[
+        'x-csrf-token'
+      ],
+    ).toBe(CSRF_TOKEN);
   });
 
   it('when an admin disables and then enables a member, then the status follows', async () => {
@@ -211,15 +267,16 @@ describe('members and invitations page', () => {
     renderApp(membersPath);
 
     await user.click(await screen.findByRole('button', { name: 'Disable Tomas Lindqvist' }));
-    await user.click(within(screen.getByRole('alertdialog')).getByRole('button', { name: 'Disable' }));
+    await user.click(
+      within(screen.getByRole('alertdialog')).getByRole('button', { name: 'Disable' }),
+    );
 
     expect(await within(rowOf(/Tomas Lindqvist/)).findByText('Disabled')).toBeDefined();
     await user.click(screen.getByRole('button', { name: 'Enable Tomas Lindqvist' }));
     expect(await within(rowOf(/Tomas Lindqvist/)).findByText('Active')).toBeDefined();
-    expect(api.requestsTo('PATCH /api/orgs/org-resonant/members/user-tomas').map((r) => r.body)).toEqual([
-      { disabled: true },
-      { disabled: false },
-    ]);
+    expect(
+      api.requestsTo('PATCH /api/orgs/org-resonant/members/user-tomas').map((r) => r.body),
+    ).toEqual([{ disabled: true }, { disabled: false }]);
   });
 
   it('when an admin resends and then revokes an invitation, then each is confirmed on the page', async () => {
@@ -227,11 +284,17 @@ describe('members and invitations page', () => {
     const api = resonantServer(['admin']);
     renderApp(membersPath);
 
-    await user.click(await screen.findByRole('button', { name: 'Resend the invitation to kofi@resonant.example' }));
-    expect(await screen.findByText('A new invitation link went to kofi@resonant.example.')).toBeDefined();
+    await user.click(
+      await screen.findByRole('button', { name: 'Resend the invitation to kofi@resonant.example' }),
+    );
+    expect(
+      await screen.findByText('A new invitation link went to kofi@resonant.example.'),
+    ).toBeDefined();
     expect(api.requestsTo('POST /api/orgs/org-resonant/invitations/inv-1/resend')).toHaveLength(1);
 
-    await user.click(screen.getByRole('button', { name: 'Revoke the invitation to kofi@resonant.example' }));
+    await user.click(
+      screen.getByRole('button', { name: 'Revoke the invitation to kofi@resonant.example' }),
+    );
     await user.click(screen.getByRole('button', { name: 'Revoke invitation' }));
 
     expect(await screen.findByText('No invitation is waiting for an answer.')).toBeDefined();

@@ -24,16 +24,23 @@ describe('profile', () => {
     await user.click(screen.getByRole('button', { name: 'Save name' }));
 
     expect(await screen.findByText('Your name is saved.')).toBeDefined();
-    expect(within(screen.getByRole('banner')).getByRole('link', { name: /Ines A\. Okafor/ })).toBeDefined();
+    expect(
+      within(screen.getByRole('banner')).getByRole('link', { name: /Ines A\. Okafor/ }),
+    ).toBeDefined();
     expect(api.requestsTo('PATCH /api/auth/me')[0]?.body).toEqual({ name: 'Ines A. Okafor' });
   });
 
   it('when the current password is wrong, then the server’s field message shows under it', async () => {
     const user = userEvent.setup();
     stubApi({
-      'GET /api/auth/me': () => ({ status: 200, body: meOf({}, [{ ...orgs.resonant, roles: ['author'] }]) }),
+      'GET /api/auth/me': () => ({
+        status: 200,
+        body: meOf({}, [{ ...orgs.resonant, roles: ['author'] }]),
+      }),
       'POST /api/auth/me/password': () =>
-        apiError(400, 'invalid-input', 'Check the marked fields.', { currentPassword: 'This is not your current password.' }),
+        apiError(400, 'invalid-input', 'Check the marked fields.', {
+          currentPassword: 'This is not your current password.',
+        }),
     });
     renderApp('/profile');
 
@@ -42,7 +49,9 @@ describe('profile', () => {
     await user.type(screen.getByLabelText('Repeat the new password'), 'common-mode-rejection');
     await user.click(screen.getByRole('button', { name: 'Change password' }));
 
-    const current = await screen.findByLabelText('Current password', { selector: 'input[aria-invalid="true"]' });
+    const current = await screen.findByLabelText('Current password', {
+      selector: 'input[aria-invalid="true"]',
+    });
     expect(current.getAttribute('aria-describedby')).toBeTruthy();
     expect(screen.getByText('This is not your current password.')).toBeDefined();
   });
