@@ -5,8 +5,10 @@ import { join } from 'node:path';
 
 /**
  * ngspice doing `count` operating points in one batch process: a `.control` loop that alters a
- * resistor and re-runs `op`, the fastest way a script can drive it. The process's start-up is
- * timed apart (a run with no loop) and taken off, so that the figure is the loop's throughput.
+ * resistor and re-runs `op`, the fastest way a script can drive it. The caller times the
+ * process's start-up apart (a run with count 0) and takes it off, so that the figure is the
+ * loop's throughput. ngspice's own account of the time spent in its analysis (`rusage time`)
+ * comes from the same run: it leaves out the control language, the alters and the result plots.
  */
 
 export const ngspicePath = '/usr/bin/ngspice';
@@ -21,7 +23,20 @@ export function ngspiceVersion(): string {
   return /ngspice-[\w.]+/.exec(run.stdout)?.[0] ?? 'ngspice (version unknown)';
 }
 
-function timeRun(deck: string, resistor: string, values: [number, number], count: number): number {
+export interface LoopRun {
+  /** Wall time of the whole process, s. */
+  seconds: number;
+  /** ngspice's "Total analysis time", s. */
+  analysisSeconds: number;
+}
+
+/** One ngspice process running the loop `count` times (0: start-up and parsing only). */
+export function ngspiceLoopRun(
+  deck: string,
+  resistor: string,
+  values: [number, number],
+  count: number,
+): LoopRun {
   const dir = mkdtempSync(join(tmpdir(), 'biasproof-bench-'));
   try {
     const file = join(dir, 'loop.cir');
@@ -39,6 +54,7 @@ function timeRun(deck: string, resistor: string, values: [number, number], count
       'destroy all',
       'let i = i + 1',
       'end',
+      'rusage time',
       'quit 0',
       '.endc',
       '.end',
@@ -53,21 +69,9 @@ function timeRun(deck: string, resistor: string, values: [number, number], count
     const seconds = Number(process.hrtime.bigint() - start) / 1e9;
     if (run.status !== 0)
       throw new Error(`ngspice failed: ${run.stderr}${run.stdout.slice(-2000)}`);
-    return seconds;
+    const analysis = /Total analysis time \(seconds\) = ([\d.eE+-]+)/.exec(run.stdout);
+    return { seconds, analysisSeconds: analysis ? Number(analysis[1]) : NaN };
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
-}
-
-/** Seconds per operating point in ngspice's batch loop (best of `repeats`, start-up removed). */
-export function ngspiceSecondsPerOp(
-  deck: string,
-  resistor: string,
-  values: [number, number],
-  count: number,
-  repeats = 3,
-): number {
-  const best = (n: number): number =>
-    Math.min(...Array.from({ length: repeats }, () => timeRun(deck, resistor, values, n)));
-  return (best(count) - best(0)) / count;
 }

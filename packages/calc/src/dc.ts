@@ -1,16 +1,23 @@
 import type { CircuitInput } from './circuit.ts';
-import { solveAssumedState } from './assumed-state.ts';
 import { buildSystem, type MnaSystem } from './mna.ts';
-import { createWork, solveNonlinear } from './newton.ts';
+import { createWork } from './newton.ts';
+import { solveNonlinear } from './solve-nonlinear.ts';
 import { buildOperatingPoint, type OperatingPoint } from './operating-point.ts';
 import {
   resolveOperatingPointOptions,
   type OperatingPointOptions,
   type ResolvedOperatingPointOptions,
 } from './options.ts';
-import { prepareCircuit, type ValidatedCircuit } from './topology.ts';
+import { solvePreparedResolved, validateForSolve } from './prepared.ts';
+import type { ValidatedCircuit } from './topology.ts';
 
 export type { DiodeLaw, OperatingPointOptions } from './options.ts';
+export {
+  prepareOperatingPoint,
+  solvePreparedOperatingPoint,
+  withElementValue,
+  type PreparedCircuit,
+} from './prepared.ts';
 export type { BjtOp, DeviceOp, DiodeOp, MosfetOp, OperatingPoint } from './operating-point.ts';
 
 /** A solved bias point together with the system it was solved on (for linearization). */
@@ -48,14 +55,6 @@ export function solveValidated(
   return { validated, options, system, x: r.x, op };
 }
 
-/** A circuit validated and topology-checked once, for repeated solves (temperature sweeps, option changes). */
-export type PreparedCircuit = ValidatedCircuit;
-
-/** Validates a circuit once (schema, names, models, topology); throws EngineError like solveOperatingPoint. */
-export function prepareOperatingPoint(circuit: CircuitInput): PreparedCircuit {
-  return prepareCircuit(circuit);
-}
-
 /**
  * The bias point (DC operating point) of a circuit: node voltages, source currents, every
  * device's operating quantities and region, every element's current and power.
@@ -66,25 +65,5 @@ export function solveOperatingPoint(
   options?: OperatingPointOptions,
 ): OperatingPoint {
   const resolved = resolveOperatingPointOptions(options);
-  return solveResolved(prepareCircuit(circuit), resolved);
-}
-
-/** The bias point of a prepared circuit; every solve starts afresh (no reuse of an earlier answer). */
-export function solvePreparedOperatingPoint(
-  prepared: PreparedCircuit,
-  options?: OperatingPointOptions,
-): OperatingPoint {
-  return solveResolved(prepared, resolveOperatingPointOptions(options));
-}
-
-function solveResolved(
-  validated: ValidatedCircuit,
-  resolved: ResolvedOperatingPointOptions,
-): OperatingPoint {
-  const hasDiodes = validated.circuit.elements.some((el) => el.kind === 'D');
-  if (resolved.diodeLaw !== 'exponential' && hasDiodes)
-    return solveAssumedState(validated, resolved);
-  const op = solveValidated(validated, resolved).op;
-  op.diodeLaw = resolved.diodeLaw;
-  return op;
+  return solvePreparedResolved(validateForSolve(circuit), resolved);
 }

@@ -18,3 +18,4 @@ export * from './worksheet/settings.ts';
 export * from './worksheet/draft.ts';
 export * from './worksheet/compute-types.ts';
 export * from './worksheet/compute.ts';
+export * from './version.ts';

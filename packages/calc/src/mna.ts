@@ -6,14 +6,15 @@ import { diodeAtTemperature, makeDiodeStamp } from './models/diode.ts';
 import { makeMosfetStamp } from './models/mosfet-stamp.ts';
 import { mosfetAtTemperature } from './models/mosfet.ts';
 import type { DeviceStamp } from './models/stamp.ts';
+import { stampLinear } from './mna-linear.ts';
 import { GROUND, type ValidatedCircuit } from './topology.ts';
 
 /**
  * Modified nodal analysis: unknowns are the node voltages (external, then the internal nodes
  * behind series resistances) followed by the branch currents of voltage-defined elements.
  * The matrix is (size+1)², row-major; row and column `size` stand for ground and are never
- * factored, so stamps need no ground test. Linear elements are stamped once into g0/b0;
- * each Newton iteration copies them and adds the devices' linearizations.
+ * factored, so stamps need no ground test. Linear elements are stamped once into g0/b0
+ * (mna-linear.ts); each Newton iteration copies them and adds the devices' linearizations.
  */
 
 /** One element with the unknowns it touches. */
@@ -79,180 +80,160 @@ export interface BuildOptions {
   diodeFactory?: DiodeStampFactory;
 }
 
-function addConductance(g0: Float64Array, stride: number, p: number, m: number, g: number): void {
-  g0[p * stride + p]! += g;
-  g0[p * stride + m]! -= g;
-  g0[m * stride + p]! -= g;
-  g0[m * stride + m]! += g;
-}
-
-function addBranch(g0: Float64Array, stride: number, p: number, m: number, k: number): void {
-  g0[p * stride + k]! += 1;
-  g0[m * stride + k]! -= 1;
-  g0[k * stride + p]! += 1;
-  g0[k * stride + m]! -= 1;
-}
-
 /** Compiles a validated circuit into its MNA system at one temperature. */
 export function buildSystem(v: ValidatedCircuit, opts: BuildOptions): MnaSystem {
   const { circuit } = v;
   const unknownNames: string[] = [...v.nodes];
-  const internal = (owner: string, suffix: string): number =>
-    unknownNames.push(`${owner}:${suffix}`) - 1;
-  const tempK = toKelvin(opts.temperature);
-  const tnomOf = (params: Record<string, number>): number =>
-    toKelvin(params.TNOM ?? opts.nominalTemperature);
-
-  // Pass 1: internal nodes and device parameters.
-  type Pending = {
-    el: Element;
-    internals: Record<string, number>;
-    params?: Record<string, number>;
-  };
-  const pending: Pending[] = circuit.elements.map((el) => {
-    const p: Pending = { el, internals: {} };
-    if (el.kind !== 'D' && el.kind !== 'Q' && el.kind !== 'M') return p;
-    const params = v.cards.get(el.model)!;
-    p.params = params;
-    if (el.kind === 'D' && !opts.diodeFactory && params.RS! > 0)
-      p.internals.a = internal(el.name, 'a');
-    if (el.kind === 'Q') {
-      if (params.RC! > 0) p.internals.c = internal(el.name, 'c');
-      if (params.RB! > 0 || (params.RBM ?? 0) > 0) p.internals.b = internal(el.name, 'b');
-      if (params.RE! > 0) p.internals.e = internal(el.name, 'e');
-    }
-    if (el.kind === 'M') {
-      if (params.RD! > 0) p.internals.d = internal(el.name, 'd');
-      if (params.RS! > 0) p.internals.s = internal(el.name, 's');
-    }
-    return p;
-  });
+  const internals = circuit.elements.map((el) =>
+    internalNodesOf(el, v.cards, opts.diodeFactory !== undefined, unknownNames),
+  );
   const nodeCount = unknownNames.length;
-  const branchOf = new Map<string, number>();
-  for (const el of circuit.elements) {
-    if (
-      el.kind === 'V' ||
-      el.kind === 'L' ||
-      el.kind === 'E' ||
-      (el.kind === 'D' && opts.diodeFactory)
-    ) {
-      branchOf.set(el.name, unknownNames.push(`i(${el.name})`) - 1);
-    }
-  }
+  const branches = circuit.elements.map((el) =>
+    el.kind === 'V' || el.kind === 'L' || el.kind === 'E' || (el.kind === 'D' && opts.diodeFactory)
+      ? unknownNames.push(`i(${el.name})`) - 1
+      : -1,
+  );
   const size = unknownNames.length;
   const stride = size + 1;
   const ground = size;
   const nodeIndex = new Map<string, number>(v.nodes.map((n, i) => [n, i]));
   nodeIndex.set(GROUND, ground);
-  const g0 = new Float64Array(stride * stride);
-  const b0 = new Float64Array(stride);
   const devices: DeviceStamp[] = [];
-  // Devices sharing a card and geometry share their temperature-scaled parameters.
-  const scaled = new Map<string, unknown>();
-  const once = <T>(key: string, make: () => T): T => {
-    if (!scaled.has(key)) scaled.set(key, make());
-    return scaled.get(key) as T;
+  const scaling: DeviceScaling = {
+    tempK: toKelvin(opts.temperature),
+    nominalTemperature: opts.nominalTemperature,
+    scaled: new Map(),
   };
-
-  // Pass 2: stamps.
-  const elements = pending.map(({ el, internals, params }): CompiledElement => {
+  const elements = circuit.elements.map((el, i): CompiledElement => {
     const terms = el.nodes.map((n) => nodeIndex.get(n)!);
-    const branch = branchOf.get(el.name) ?? -1;
-    const ce: CompiledElement = { el, terms, branch, series: [] };
-    const resistor = (label: string, ext: number, int: number, ohms: number): void => {
-      addConductance(g0, stride, ext, int, 1 / ohms);
-      ce.series.push({ label, nodes: [ext, int], value: ohms });
-    };
-    const [p, m, cp, cm] = terms as [number, number, number, number];
-    switch (el.kind) {
-      case 'R':
-        addConductance(g0, stride, p, m, 1 / el.value);
-        break;
-      case 'C':
-        break;
-      case 'L':
-        addBranch(g0, stride, p, m, branch);
-        break;
-      case 'V':
-        addBranch(g0, stride, p, m, branch);
-        b0[branch] = el.dc;
-        break;
-      case 'I':
-        b0[p]! -= el.dc;
-        b0[m]! += el.dc;
-        break;
-      case 'E':
-        addBranch(g0, stride, p, m, branch);
-        g0[branch * stride + cp]! -= el.gain;
-        g0[branch * stride + cm]! += el.gain;
-        break;
-      case 'G':
-        g0[p * stride + cp]! += el.gain;
-        g0[p * stride + cm]! -= el.gain;
-        g0[m * stride + cp]! -= el.gain;
-        g0[m * stride + cm]! += el.gain;
-        break;
-      case 'D': {
-        if (opts.diodeFactory) {
-          ce.device = opts.diodeFactory(el.name, p, m, branch, stride);
-          break;
-        }
-        const d = once(`${el.model}|${el.area}`, () =>
-          diodeAtTemperature(params!, el.area, tempK, tnomOf(params!)),
-        );
-        const ai = internals.a ?? p;
-        if (ai !== p) resistor('rs', p, ai, d.rs);
-        ce.device = makeDiodeStamp(el.name, p, ai, m, d, stride);
-        break;
-      }
-      case 'Q': {
-        const model = v.models.get(el.model)!;
-        const q = once(`${el.model}|${el.area}`, () =>
-          bjtAtTemperature(params!, model.kind === 'PNP' ? -1 : 1, el.area, tempK, tnomOf(params!)),
-        );
-        const nd = {
-          c: p,
-          b: m,
-          e: cp,
-          ci: internals.c ?? p,
-          bi: internals.b ?? m,
-          ei: internals.e ?? cp,
-        };
-        if (nd.ci !== p) resistor('rc', p, nd.ci, q.rc);
-        if (nd.ei !== cp) resistor('re', cp, nd.ei, q.re);
-        if (nd.bi !== m && q.rbpi === 0) resistor('rb', m, nd.bi, q.rbpr);
-        ce.device = makeBjtStamp(el.name, nd, q, stride);
-        break;
-      }
-      case 'M': {
-        const model = v.models.get(el.model)!;
-        const leff = el.l - 2 * params!.LD!;
-        if (!(leff > 0)) {
-          throw new EngineError(
-            'bad-value',
-            `${el.name}: effective channel length L − 2·LD is not positive`,
-            { element: el.name },
-          );
-        }
-        const mt = once(`${el.model}|${el.w}|${el.l}`, () =>
-          mosfetAtTemperature(
-            params!,
-            model.kind === 'PMOS' ? -1 : 1,
-            el.w,
-            el.l,
-            tempK,
-            tnomOf(params!),
-          ),
-        );
-        const nd = { d: p, g: m, s: cp, b: cm, di: internals.d ?? p, si: internals.s ?? cp };
-        if (nd.di !== p) resistor('rd', p, nd.di, mt.rd);
-        if (nd.si !== cp) resistor('rs', cp, nd.si, mt.rs);
-        ce.device = makeMosfetStamp(el.name, nd, mt, stride);
-        break;
-      }
+    const ce: CompiledElement = { el, terms, branch: branches[i]!, series: [] };
+    if (el.kind === 'D' || el.kind === 'Q' || el.kind === 'M') {
+      ce.device = compileDevice(v, el, ce, internals[i]!, scaling, stride, opts.diodeFactory);
+      devices.push(ce.device);
     }
-    if (ce.device) devices.push(ce.device);
     return ce;
   });
+  // One backing store for both (see createWork).
+  const linear = new ArrayBuffer(8 * (stride * stride + stride));
+  const g0 = new Float64Array(linear, 0, stride * stride);
+  const b0 = new Float64Array(linear, 8 * stride * stride, stride);
+  stampLinear(elements, stride, g0, b0);
   return { size, stride, ground, nodeCount, unknownNames, nodeIndex, elements, devices, g0, b0 };
+}
+
+/** Internal nodes of a device with series resistances, appended to `unknownNames` (name → index). */
+function internalNodesOf(
+  el: Element,
+  cards: ValidatedCircuit['cards'],
+  switchedDiodes: boolean,
+  unknownNames: string[],
+): Record<string, number> {
+  const out: Record<string, number> = {};
+  if (el.kind !== 'D' && el.kind !== 'Q' && el.kind !== 'M') return out;
+  const params = cards.get(el.model)!;
+  const add = (suffix: string): void => {
+    out[suffix] = unknownNames.push(`${el.name}:${suffix}`) - 1;
+  };
+  if (el.kind === 'D' && !switchedDiodes && params.RS! > 0) add('a');
+  if (el.kind === 'Q') {
+    if (params.RC! > 0) add('c');
+    if (params.RB! > 0 || (params.RBM ?? 0) > 0) add('b');
+    if (params.RE! > 0) add('e');
+  }
+  if (el.kind === 'M') {
+    if (params.RD! > 0) add('d');
+    if (params.RS! > 0) add('s');
+  }
+  return out;
+}
+
+/** The circuit temperature and the temperature-scaled parameters already computed, shared by devices of one card and geometry. */
+interface DeviceScaling {
+  /** K. */
+  tempK: number;
+  /** °C, unless a card gives TNOM. */
+  nominalTemperature: number;
+  scaled: Map<string, unknown>;
+}
+
+function scaledOnce<T>(s: DeviceScaling, key: string, make: () => T): T {
+  let value = s.scaled.get(key) as T | undefined;
+  if (value === undefined) {
+    value = make();
+    s.scaled.set(key, value);
+  }
+  return value;
+}
+
+/** Records a model's series resistance on the element; stampLinear stamps it. */
+function addSeries(
+  ce: CompiledElement,
+  label: string,
+  ext: number,
+  int: number,
+  ohms: number,
+): void {
+  ce.series.push({ label, nodes: [ext, int], value: ohms });
+}
+
+/** The nonlinear stamp of a D, Q or M (and its series resistances, recorded on `ce`). */
+function compileDevice(
+  v: ValidatedCircuit,
+  el: Extract<Element, { kind: 'D' | 'Q' | 'M' }>,
+  ce: CompiledElement,
+  internals: Record<string, number>,
+  s: DeviceScaling,
+  stride: number,
+  diodeFactory: DiodeStampFactory | undefined,
+): DeviceStamp {
+  const [p, m, cp, cm] = ce.terms as [number, number, number, number];
+  const params = v.cards.get(el.model)!;
+  const tnomK = toKelvin(params.TNOM ?? s.nominalTemperature);
+  switch (el.kind) {
+    case 'D': {
+      if (diodeFactory) return diodeFactory(el.name, p, m, ce.branch, stride);
+      const d = scaledOnce(s, `${el.model}|${el.area}`, () =>
+        diodeAtTemperature(params, el.area, s.tempK, tnomK),
+      );
+      const ai = internals.a ?? p;
+      if (ai !== p) addSeries(ce, 'rs', p, ai, d.rs);
+      return makeDiodeStamp(el.name, p, ai, m, d, stride);
+    }
+    case 'Q': {
+      const type = v.models.get(el.model)!.kind === 'PNP' ? -1 : 1;
+      const q = scaledOnce(s, `${el.model}|${el.area}`, () =>
+        bjtAtTemperature(params, type, el.area, s.tempK, tnomK),
+      );
+      const nd = {
+        c: p,
+        b: m,
+        e: cp,
+        ci: internals.c ?? p,
+        bi: internals.b ?? m,
+        ei: internals.e ?? cp,
+      };
+      if (nd.ci !== p) addSeries(ce, 'rc', p, nd.ci, q.rc);
+      if (nd.ei !== cp) addSeries(ce, 're', cp, nd.ei, q.re);
+      if (nd.bi !== m && q.rbpi === 0) addSeries(ce, 'rb', m, nd.bi, q.rbpr);
+      return makeBjtStamp(el.name, nd, q, stride);
+    }
+    case 'M': {
+      const leff = el.l - 2 * params.LD!;
+      if (!(leff > 0)) {
+        throw new EngineError(
+          'bad-value',
+          `${el.name}: effective channel length L − 2·LD is not positive`,
+          { element: el.name },
+        );
+      }
+      const type = v.models.get(el.model)!.kind === 'PMOS' ? -1 : 1;
+      const mt = scaledOnce(s, `${el.model}|${el.w}|${el.l}`, () =>
+        mosfetAtTemperature(params, type, el.w, el.l, s.tempK, tnomK),
+      );
+      const nd = { d: p, g: m, s: cp, b: cm, di: internals.d ?? p, si: internals.s ?? cp };
+      if (nd.di !== p) addSeries(ce, 'rd', p, nd.di, mt.rd);
+      if (nd.si !== cp) addSeries(ce, 'rs', cp, nd.si, mt.rs);
+      return makeMosfetStamp(el.name, nd, mt, stride);
+    }
+  }
 }

@@ -1,11 +1,10 @@
-import { EngineError } from './errors.ts';
 import { luFactor, luSolve } from './lu.ts';
 import type { MnaSystem } from './mna.ts';
 
 /**
- * Newton-Raphson on the MNA system, with SPICE's fallbacks when plain iteration fails: gmin
- * stepping (a shunt conductance on every node, lowered decade by decade) and source stepping
- * (all independent sources ramped from zero). Every loop is capped, so a solve always ends.
+ * One Newton-Raphson attempt on the MNA system (solve-nonlinear.ts adds SPICE's fallbacks).
+ * The iteration allocates nothing: the matrix, right-hand side, iterate and pivots live in a
+ * NewtonWork made once per system, and the device stamps write into them in place.
  */
 
 /** Relative change of every unknown at convergence. */
@@ -41,16 +40,24 @@ export interface NewtonWork {
   /** The assembled matrix and right-hand side before factoring, for the residual. */
   saved: Float64Array;
   rhs: Float64Array;
+  /** Where kclResidual reports the largest residual (A) and its node (an unknown index). */
+  kcl: { residual: number; node: number };
 }
 
 export function createWork(sys: MnaSystem): NewtonWork {
+  const n = sys.stride;
+  const square = n * n;
+  // One backing store for all the buffers: a typed array with a store of its own costs an
+  // allocation outside the heap, which would dominate setting up a small circuit.
+  const pool = new ArrayBuffer(8 * (2 * square + 3 * n) + 4 * n);
   return {
-    a: new Float64Array(sys.stride * sys.stride),
-    b: new Float64Array(sys.stride),
-    perm: new Int32Array(sys.stride),
-    x: new Float64Array(sys.stride),
-    saved: new Float64Array(sys.stride * sys.stride),
-    rhs: new Float64Array(sys.stride),
+    a: new Float64Array(pool, 0, square),
+    saved: new Float64Array(pool, 8 * square, square),
+    b: new Float64Array(pool, 8 * 2 * square, n),
+    x: new Float64Array(pool, 8 * (2 * square + n), n),
+    rhs: new Float64Array(pool, 8 * (2 * square + 2 * n), n),
+    perm: new Int32Array(pool, 8 * (2 * square + 3 * n), n),
+    kcl: { residual: 0, node: 0 },
   };
 }
 
@@ -71,20 +78,25 @@ export function assemble(sys: MnaSystem, work: NewtonWork, s: NewtonSettings): b
   a.set(sys.g0);
   const f = s.sourceFactor;
   const b0 = sys.b0;
-  for (let i = 0; i < sys.stride; i++) b[i] = f * b0[i]!;
+  if (f === 1) b.set(b0);
+  else for (let i = 0; i < sys.stride; i++) b[i] = f * b0[i]!;
   if (s.diagGmin > 0) for (let i = 0; i < sys.nodeCount; i++) a[i * sys.stride + i]! += s.diagGmin;
   let limited = false;
   for (const d of sys.devices) if (d.load(x, a, b, s.gmin)) limited = true;
   return limited;
 }
 
-/** Largest KCL residual of the assembled system (matrix `a` before factoring) at x; ok when every node is within tolerance. */
+/**
+ * Largest KCL residual of the assembled system (matrix `a` before factoring) at x, written to
+ * `out`; true when every node is within tolerance.
+ */
 function kclResidual(
   sys: MnaSystem,
   a: Float64Array,
   b: Float64Array,
   x: Float64Array,
-): { residual: number; node: number; ok: boolean } {
+  out: NewtonWork['kcl'],
+): boolean {
   const { size, stride, nodeCount } = sys;
   let residual = 0;
   let node = 0;
@@ -108,7 +120,9 @@ function kclResidual(
     }
     if (r > RESIDUAL_TOLERANCE + 16 * EPS * scale) ok = false;
   }
-  return { residual, node, ok };
+  out.residual = residual;
+  out.node = node;
+  return ok;
 }
 
 /**
@@ -117,15 +131,18 @@ function kclResidual(
  * linearization point is within RESIDUAL_TOLERANCE; the returned iterate is the updated one.
  */
 export function newton(sys: MnaSystem, work: NewtonWork, s: NewtonSettings): NewtonOutcome {
-  const { a, b, perm, x, saved, rhs } = work;
+  const { a, b, perm, x, saved, rhs, kcl } = work;
   const { size, stride, nodeCount, ground } = sys;
   let residual = Infinity;
   let worstNode = 0;
   for (let it = 1; it <= s.maxIterations; it++) {
     const limited = assemble(sys, work, s);
-    // The residual is needed only once the step is small; keep the system to compute it then.
-    saved.set(a);
-    rhs.set(b);
+    // The residual is needed only when no step was limited and the step turns out small; keep
+    // the system (the factorization overwrites it) for that case only.
+    if (!limited) {
+      saved.set(a);
+      rhs.set(b);
+    }
     const bad = luFactor(a, size, stride, perm);
     if (bad >= 0)
       return { converged: false, failure: 'singular', iterations: it, residual, worstNode: bad };
@@ -147,12 +164,15 @@ export function newton(sys: MnaSystem, work: NewtonWork, s: NewtonSettings): New
         residual,
         worstNode: vmaxNode,
       };
-    let small = true;
+    // The step size matters only when no junction was limited (and only until one unknown
+    // moved too far); every unknown is still checked for NaN and infinity.
+    let small = !limited;
     const vFloor = VOLTAGE_TOLERANCE + 1e-13 * vmax;
     for (let i = 0; i < size; i++) {
       const xn = b[i]!;
       if (!Number.isFinite(xn))
         return { converged: false, failure: 'diverged', iterations: it, residual, worstNode: i };
+      if (!small) continue;
       const xo = x[i]!;
       const tol =
         RELATIVE_TOLERANCE * Math.max(Math.abs(xn), Math.abs(xo)) +
@@ -160,11 +180,10 @@ export function newton(sys: MnaSystem, work: NewtonWork, s: NewtonSettings): New
       if (Math.abs(xn - xo) > tol) small = false;
     }
     let ok = false;
-    if (small && !limited) {
-      const r = kclResidual(sys, saved, rhs, x);
-      residual = r.residual;
-      worstNode = r.node;
-      ok = r.ok;
+    if (small) {
+      ok = kclResidual(sys, saved, rhs, x, kcl);
+      residual = kcl.residual;
+      worstNode = kcl.node;
     }
     for (let i = 0; i < size; i++) x[i] = b[i]!;
     x[ground] = 0;
@@ -173,9 +192,9 @@ export function newton(sys: MnaSystem, work: NewtonWork, s: NewtonSettings): New
   if (!Number.isFinite(residual)) {
     // Report where the last linearization leaves the most current unbalanced.
     assemble(sys, work, s);
-    const r = kclResidual(sys, a, b, x);
-    residual = r.residual;
-    worstNode = r.node;
+    kclResidual(sys, a, b, x, kcl);
+    residual = kcl.residual;
+    worstNode = kcl.node;
   }
   return {
     converged: false,
@@ -184,106 +203,4 @@ export function newton(sys: MnaSystem, work: NewtonWork, s: NewtonSettings): New
     residual,
     worstNode,
   };
-}
-
-export type SolveMethod = 'plain' | 'gmin-stepping' | 'source-stepping';
-
-export interface SolveResult {
-  /** Solution; x[ground] = 0. */
-  x: Float64Array;
-  iterations: number;
-  method: SolveMethod;
-}
-
-function seedAll(sys: MnaSystem, x: Float64Array | null): void {
-  for (const d of sys.devices) d.seed(x);
-}
-
-/**
- * Solves the nonlinear DC system: plain Newton, then gmin stepping, then source stepping.
- * `start` (if given) is the initial iterate; otherwise devices start from SPICE's junction guesses.
- */
-export function solveNonlinear(
-  sys: MnaSystem,
-  work: NewtonWork,
-  settings: { maxIterations: number; gmin: number },
-  start?: Float64Array,
-): SolveResult {
-  const base: NewtonSettings = { ...settings, diagGmin: 0, sourceFactor: 1 };
-  let total = 0;
-  const reset = (): void => {
-    if (start) {
-      work.x.set(start);
-      seedAll(sys, work.x);
-    } else {
-      work.x.fill(0);
-      seedAll(sys, null);
-    }
-  };
-  reset();
-  let last = newton(sys, work, base);
-  total += last.iterations;
-  if (last.converged) return { x: work.x, iterations: total, method: 'plain' };
-  const plainFailure = last;
-
-  // Gmin stepping: start heavily shunted, relax the shunt while each step converges; on a
-  // failed step go back to the last good solution and relax more gently.
-  reset();
-  const good = new Float64Array(sys.stride);
-  let goodDiag = -1;
-  let diag = 1e-2;
-  let factor = 10;
-  for (let step = 0; step < 200; step++) {
-    last = newton(sys, work, { ...base, diagGmin: diag });
-    total += last.iterations;
-    if (last.converged) {
-      if (diag === 0) return { x: work.x, iterations: total, method: 'gmin-stepping' };
-      good.set(work.x);
-      goodDiag = diag;
-    } else {
-      if (goodDiag < 0) break;
-      factor = Math.sqrt(factor);
-      if (factor < 1.00005) break;
-      work.x.set(good);
-      seedAll(sys, work.x);
-    }
-    diag = goodDiag / factor < settings.gmin ? 0 : goodDiag / factor;
-  }
-
-  // Source stepping: ramp every independent source from zero.
-  work.x.fill(0);
-  seedAll(sys, null);
-  let goodScale = -1;
-  let scale = 0;
-  let ds = 0.1;
-  for (let step = 0; step < 1000; step++) {
-    last = newton(sys, work, { ...base, sourceFactor: scale });
-    total += last.iterations;
-    if (last.converged) {
-      if (scale === 1) return { x: work.x, iterations: total, method: 'source-stepping' };
-      good.set(work.x);
-      goodScale = scale;
-      ds = Math.min(ds * 1.5, 0.5);
-    } else {
-      if (goodScale < 0) break;
-      ds /= 4;
-      if (ds < 1e-7) break;
-      work.x.set(good);
-      seedAll(sys, work.x);
-    }
-    scale = Math.min(1, goodScale + ds);
-  }
-  const worst = plainFailure;
-  const node = sys.unknownNames[worst.worstNode] ?? '?';
-  const where =
-    worst.failure === 'iteration-cap' && Number.isFinite(worst.residual)
-      ? `largest KCL residual ${worst.residual.toExponential(3)} A at node ${node}`
-      : worst.failure === 'singular'
-        ? `the linearized circuit is singular at ${node}`
-        : `the voltage at ${node} ran away (an exponential junction driven far beyond its knee?)`;
-  throw new EngineError(
-    'no-convergence',
-    `the bias point did not converge (plain Newton, gmin stepping and source stepping all failed): ${where}`,
-    { node },
-  );
 }

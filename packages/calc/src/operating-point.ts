@@ -54,22 +54,30 @@ export interface OperatingPointMeta {
   warnings: string[];
 }
 
+/** KCL sums of buildOperatingPoint, reused across calls (a typed-array allocation costs more than the sums). */
+let kclScratch = new Float64Array(64);
+
 /** Evaluates every element at the solution x and assembles the user-facing result. */
 export function buildOperatingPoint(
   sys: MnaSystem,
   x: Float64Array,
   meta: OperatingPointMeta,
 ): OperatingPoint {
+  // Unknowns 0…externalCount−1 are the circuit's own nodes, in order of first appearance.
+  const externalCount = sys.nodeIndex.size - 1;
   const nodes: Record<string, number> = {};
-  for (const [name, i] of sys.nodeIndex) if (i !== sys.ground) nodes[name] = x[i]!;
+  for (let i = 0; i < externalCount; i++) nodes[sys.unknownNames[i]!] = x[i]!;
   const sources: Record<string, number> = {};
   const devices: Record<string, DeviceOp> = {};
   const elements: Record<string, ElementOp> = {};
-  const kcl = new Float64Array(sys.stride);
+  if (kclScratch.length < sys.stride) kclScratch = new Float64Array(sys.stride);
+  const kcl = kclScratch;
+  kcl.fill(0, 0, sys.stride);
   let supplyPower = 0;
   for (const ce of sys.elements) {
     const { el, terms } = ce;
-    const [p, m] = terms as [number, number];
+    const p = terms[0]!;
+    const m = terms[1]!;
     const vpm = x[p]! - x[m]!;
     let current = 0;
     let power: number;
@@ -108,8 +116,18 @@ export function buildOperatingPoint(
     elements[el.name] = { current, power };
   }
   let residual = 0;
-  for (const i of sys.nodeIndex.values())
-    if (i !== sys.ground) residual = Math.max(residual, Math.abs(kcl[i]!));
-  const { gmin: _gmin, ...rest } = meta;
-  return { nodes, sources, devices, elements, supplyPower, residual, ...rest };
+  for (let i = 0; i < externalCount; i++) residual = Math.max(residual, Math.abs(kcl[i]!));
+  return {
+    nodes,
+    sources,
+    devices,
+    elements,
+    supplyPower,
+    residual,
+    iterations: meta.iterations,
+    method: meta.method,
+    temperature: meta.temperature,
+    diodeLaw: meta.diodeLaw,
+    warnings: meta.warnings,
+  };
 }

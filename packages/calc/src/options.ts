@@ -91,9 +91,13 @@ export function resolveOperatingPointOptions(
   options: OperatingPointOptions = {},
 ): ResolvedOperatingPointOptions {
   // Most solves use the defaults; skip the schema for them.
-  if (Object.values(options).every((v) => v === undefined))
-    return { ...(defaults ??= resolve({})) };
+  if (allUndefined(options)) return { ...(defaults ??= resolve({})) };
   return resolve(options);
+}
+
+function allUndefined(options: OperatingPointOptions): boolean {
+  for (const value of Object.values(options)) if (value !== undefined) return false;
+  return true;
 }
 
 function resolve(options: OperatingPointOptions): ResolvedOperatingPointOptions {

@@ -6,7 +6,8 @@ import { linearizeSolved } from './linearize.ts';
 import { buildSystem } from './mna.ts';
 import type { DeviceOp, OperatingPoint } from './operating-point.ts';
 import { resolveOperatingPointOptions } from './options.ts';
-import { createWork, solveNonlinear } from './newton.ts';
+import { createWork } from './newton.ts';
+import { solveNonlinear } from './solve-nonlinear.ts';
 import { prepareCircuit, type ValidatedCircuit } from './topology.ts';
 
 /**

@@ -39,25 +39,29 @@ const MODEL_KINDS: Partial<Record<Element['kind'], readonly string[]>> = {
   M: ['NMOS', 'PMOS'],
 };
 
+const TWO_TERMINAL: readonly (readonly [number, number])[] = [[0, 1]];
+const BJT_PAIRS: readonly (readonly [number, number])[] = [
+  [0, 1],
+  [1, 2],
+];
+const MOSFET_PAIRS: readonly (readonly [number, number])[] = [
+  [0, 2],
+  [2, 3],
+];
+
 /** Terminal pairs that conduct at DC (used for the path-to-ground check). */
-function dcPairs(el: Element): [number, number][] {
+function dcPairs(el: Element): readonly (readonly [number, number])[] {
   switch (el.kind) {
     case 'R':
     case 'L':
     case 'V':
     case 'D':
     case 'E':
-      return [[0, 1]];
+      return TWO_TERMINAL;
     case 'Q':
-      return [
-        [0, 1],
-        [1, 2],
-      ];
+      return BJT_PAIRS;
     case 'M':
-      return [
-        [0, 2],
-        [2, 3],
-      ];
+      return MOSFET_PAIRS;
     default:
       return [];
   }
@@ -86,7 +90,7 @@ function unionFind(): { find(a: string): string; union(a: string, b: string): bo
   const parent = new Map<string, string>();
   const find = (a: string): string => {
     let root = a;
-    while (parent.has(root)) root = parent.get(root)!;
+    for (let up = parent.get(root); up !== undefined; up = parent.get(root)) root = up;
     if (root !== a) parent.set(a, root);
     return root;
   };
@@ -124,20 +128,23 @@ export function checkVoltageLoops(
   }
 }
 
+function canonicalNode(n: string): string {
+  return isGround(n) ? GROUND : n.toLowerCase();
+}
+
 /** Validates a circuit and runs every check that does not need the numerics. */
 export function prepareCircuit(input: CircuitInput): ValidatedCircuit {
   const parsed = circuitSchema.safeParse(input);
   if (!parsed.success) throw zodToEngineError(input, parsed.error);
-  const canon = (n: string): string => (isGround(n) ? GROUND : n.toLowerCase());
-  const circuit: Circuit = {
-    ...parsed.data,
-    elements: parsed.data.elements.map((el) => {
-      const low = { ...el, name: el.name.toLowerCase(), nodes: el.nodes.map(canon) } as Element;
-      if ('model' in low) low.model = low.model.toLowerCase();
-      return low;
-    }),
-    models: parsed.data.models.map((m) => ({ ...m, name: m.name.toLowerCase() })),
-  };
+  // zod's output is a fresh copy that nothing else holds, so it is made canonical in place.
+  const circuit: Circuit = parsed.data;
+  for (const el of circuit.elements) {
+    el.name = el.name.toLowerCase();
+    const nodes = el.nodes as string[];
+    for (let i = 0; i < nodes.length; i++) nodes[i] = canonicalNode(nodes[i]!);
+    if ('model' in el) el.model = el.model.toLowerCase();
+  }
+  for (const m of circuit.models) m.name = m.name.toLowerCase();
   if (circuit.elements.length === 0)
     throw new EngineError('invalid-circuit', 'the circuit has no elements');
 

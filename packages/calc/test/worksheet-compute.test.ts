@@ -37,11 +37,15 @@ describe('computeWorksheet', () => {
   });
 
   it('when computed twice, then the results are identical (no timings, nothing random)', () => {
-    expect(JSON.stringify(computeWorksheet(diodeDraft()))).toBe(JSON.stringify(computeWorksheet(diodeDraft())));
+    expect(JSON.stringify(computeWorksheet(diodeDraft()))).toBe(
+      JSON.stringify(computeWorksheet(diodeDraft())),
+    );
   });
 
   it('when the circuit is empty, then the answer says so', () => {
-    expect(computeWorksheet({ ...diodeDraft(), circuit: { title: '', elements: [], models: [] } })).toEqual({
+    expect(
+      computeWorksheet({ ...diodeDraft(), circuit: { title: '', elements: [], models: [] } }),
+    ).toEqual({
       status: 'empty',
     });
   });
@@ -51,7 +55,8 @@ describe('computeWorksheet', () => {
     draft.circuit.models = [];
     const r = computeWorksheet(draft);
     expect(r.status).toBe('failed');
-    if (r.status === 'failed') expect(r.error).toMatchObject({ code: 'unknown-model', element: 'd1' });
+    if (r.status === 'failed')
+      expect(r.error).toMatchObject({ code: 'unknown-model', element: 'd1' });
   });
 
   it('when no input source is chosen, then the signal views say what is missing', () => {
@@ -59,6 +64,9 @@ describe('computeWorksheet', () => {
     draft.settings = analysisSettingsSchema.parse({});
     const r = computeWorksheet(draft);
     if (r.status !== 'solved') throw new Error('expected solved');
-    expect(r.smallSignal).toEqual({ ok: false, missing: 'Choose the input source in the analysis settings.' });
+    expect(r.smallSignal).toEqual({
+      ok: false,
+      missing: 'Choose the input source in the analysis settings.',
+    });
   });
 });

@@ -208,8 +208,9 @@ export function makeBjtStamp(
     xbbi = at(b, bi),
     xbib = at(bi, b),
     xbibi = at(bi, bi);
-  let vbeOld = 0;
-  let vbcOld = 0;
+  // Junction voltages of the last load (limiting memory), [vbe, vbc], in a typed array: a double
+  // held in a closure variable is boxed anew on every store.
+  const old = new Float64Array(2);
   let pendingSeed = true;
   return {
     name,
@@ -220,8 +221,8 @@ export function makeBjtStamp(
     seed(x) {
       pendingSeed = x === null;
       if (x) {
-        vbeOld = t * (x[bi]! - x[ei]!);
-        vbcOld = t * (x[bi]! - x[ci]!);
+        old[0] = t * (x[bi]! - x[ei]!);
+        old[1] = t * (x[bi]! - x[ci]!);
       }
     },
     load(x, a, rhs, gmin) {
@@ -236,12 +237,12 @@ export function makeBjtStamp(
         pendingSeed = false;
         limited = true;
       } else {
-        vbe = limitJunction(vbeRaw, vbeOld, q.vt, q.vcrit);
-        vbc = limitJunction(vbcRaw, vbcOld, q.vt, q.vcrit);
+        vbe = limitJunction(vbeRaw, old[0]!, q.vt, q.vcrit);
+        vbc = limitJunction(vbcRaw, old[1]!, q.vt, q.vcrit);
         limited = vbe !== vbeRaw || vbc !== vbcRaw;
       }
-      vbeOld = vbe;
-      vbcOld = vbc;
+      old[0] = vbe;
+      old[1] = vbc;
       const r = gummelPoon(q, vbe, vbc, gmin);
       const icc = r[0]!,
         ib = r[1]!,

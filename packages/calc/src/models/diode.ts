@@ -73,7 +73,9 @@ export function makeDiodeStamp(
   stride: number,
 ): DeviceStamp<DiodeOp> {
   const [aa, ak, ka, kk] = pairOffsets(anode, cathode, stride);
-  let vOld = 0;
+  // Junction voltage of the last load (limiting memory), in a typed array: a double held in a
+  // closure variable is boxed anew on every store.
+  const vOld = new Float64Array(1);
   let pendingSeed = true;
   const evaluate = (vd: number, gmin: number): void => {
     junctionCurrent(vd, d.isat, d.nvt);
@@ -85,7 +87,7 @@ export function makeDiodeStamp(
     ports: [{ label: 'D', p: anode, m: cathode, polarity: 1, nvt: d.nvt }],
     seed(x) {
       pendingSeed = x === null;
-      if (x) vOld = x[anode]! - x[cathode]!;
+      if (x) vOld[0] = x[anode]! - x[cathode]!;
     },
     load(x, a, b, gmin) {
       const raw = x[anode]! - x[cathode]!;
@@ -96,10 +98,10 @@ export function makeDiodeStamp(
         pendingSeed = false;
         limited = true;
       } else {
-        vd = limitJunction(raw, vOld, d.nvt, d.vcrit);
+        vd = limitJunction(raw, vOld[0]!, d.nvt, d.vcrit);
         limited = vd !== raw;
       }
-      vOld = vd;
+      vOld[0] = vd;
       evaluate(vd, gmin);
       const id = junctionOut[0]!;
       const gd = junctionOut[1]!;

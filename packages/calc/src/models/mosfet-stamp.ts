@@ -34,10 +34,9 @@ export function makeMosfetStamp(
 ): DeviceStamp<MosfetOp> {
   const { g, b, di, si } = nd;
   const t = m.type;
-  let vgsOld = 0,
-    vdsOld = 0,
-    vbsOld = 0,
-    vonOld = m.vto;
+  // Limiting memory of the last load, [vgs, vds, vbs, von], in a typed array: a double held in a
+  // closure variable is boxed anew on every store.
+  const old = new Float64Array([0, 0, 0, m.vto]);
   let pendingSeed = true;
 
   /** Stamps a conductance-controlled channel from `p` to `q` with control columns. */
@@ -73,11 +72,11 @@ export function makeMosfetStamp(
     seed(x) {
       pendingSeed = x === null;
       if (x) {
-        vgsOld = t * (x[g]! - x[si]!);
-        vdsOld = t * (x[di]! - x[si]!);
-        vbsOld = t * (x[b]! - x[si]!);
+        old[0] = t * (x[g]! - x[si]!);
+        old[1] = t * (x[di]! - x[si]!);
+        old[2] = t * (x[b]! - x[si]!);
       }
-      vonOld = m.vto;
+      old[3] = m.vto;
     },
     load(x, a, rhs, gmin) {
       let vgs = t * (x[g]! - x[si]!);
@@ -91,6 +90,10 @@ export function makeMosfetStamp(
         pendingSeed = false;
         limited = true;
       } else {
+        const vgsOld = old[0]!,
+          vdsOld = old[1]!,
+          vbsOld = old[2]!,
+          vonOld = old[3]!;
         let ngs = vgs,
           nds = vds,
           nbs = vbs;
@@ -122,9 +125,9 @@ export function makeMosfetStamp(
           vbs = nbs;
         }
       }
-      vgsOld = vgs;
-      vdsOld = vds;
-      vbsOld = vbs;
+      old[0] = vgs;
+      old[1] = vds;
+      old[2] = vbs;
       const vbd = vbs - vds;
       const forward = vds >= 0;
       const r = forward
@@ -134,8 +137,9 @@ export function makeMosfetStamp(
         gm = r[1]!,
         gds = r[2]!,
         gmbs = r[3]!;
-      vonOld = r[4]!;
-      const [de, se] = forward ? [di, si] : [si, di];
+      old[3] = r[4]!;
+      const de = forward ? di : si;
+      const se = forward ? si : di;
       const vgsE = forward ? vgs : vgs - vds;
       const vdsE = forward ? vds : -vds;
       const vbsE = forward ? vbs : vbd;
