@@ -14,6 +14,7 @@ import { findAccountByEmail } from '../../apps/server/src/auth/accounts.ts';
 import { findOrganizationBySlug } from '../../apps/server/src/orgs/repository.ts';
 import { inTransaction } from '../../apps/server/src/db/transactions.ts';
 import { DEMO_PASSWORD, demoOrganizations } from './demo-organizations.ts';
+import { modelLibrary, projectsAndWorksheets } from './demo-worksheet-steps.ts';
 
 export interface DemoStepResult {
   /** True when this run wrote the step's data (false when it was already there). */
@@ -109,4 +110,9 @@ const pendingInvitations: DemoStep = {
  * The demo scenario, in load order. Each step finds what is already there and adds only
  * what is missing, so loading twice changes nothing.
  */
-export const demoSteps: DemoStep[] = [organizationsAndPeople, pendingInvitations];
+export const demoSteps: DemoStep[] = [
+  organizationsAndPeople,
+  pendingInvitations,
+  modelLibrary,
+  projectsAndWorksheets,
+];

@@ -15,6 +15,8 @@ import { createCsrf } from './auth/csrf.ts';
 import { authRoutes } from './auth/routes.ts';
 import { invitationPublicRoutes } from './invitations/routes.ts';
 import { orgRoutes } from './orgs/routes.ts';
+import { calcRoutes } from './calc/routes.ts';
+import { MAX_DRAFT_BYTES } from '@biasproof/shared';
 
 export interface AppDeps {
   config: AppConfig;
@@ -51,15 +53,22 @@ export function createApp({ config, sequelize, logger, mailer }: AppDeps): Expre
     }),
   );
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  // Drafts sent to the engine unsaved get a tighter cap than other bodies (413 beyond it).
+  app.use('/api/calc', express.json({ limit: MAX_DRAFT_BYTES }));
   app.use(express.json({ limit: '1mb' }));
 
   const api = express.Router();
   api.use(healthRoutes(sequelize));
   const csrf = createCsrf(config);
-  api.use(sessionMiddleware(config, sequelize, logger), sessionTimeouts(config), ...csrf.middleware);
+  api.use(
+    sessionMiddleware(config, sequelize, logger),
+    sessionTimeouts(config),
+    ...csrf.middleware,
+  );
   api.use('/auth', authRoutes(svc, csrf));
   api.use('/invitations', invitationPublicRoutes(svc, csrf));
   api.use('/orgs/:orgId', orgRoutes(svc));
+  api.use('/calc', calcRoutes(svc));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -24,24 +24,42 @@ const configSchema = z
     SMTP_HOST: z.string().min(1).default('127.0.0.1'),
     SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(1025),
     MAIL_FROM: z.string().min(3).default('Biasproof <no-reply@biasproof.example>'),
-    LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+    LOG_LEVEL: z
+      .enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'])
+      .default('info'),
     WEB_DIST: z.string().optional(),
     /** Trust X-Forwarded-For from one reverse proxy in front (for per-IP sign-in throttling). */
     TRUST_PROXY: booleanFlag.default(false),
-    SESSION_IDLE_TIMEOUT_SECONDS: z.coerce.number().positive().default(30 * 60),
-    SESSION_ABSOLUTE_TIMEOUT_SECONDS: z.coerce.number().positive().default(12 * 60 * 60),
+    SESSION_IDLE_TIMEOUT_SECONDS: z.coerce
+      .number()
+      .positive()
+      .default(30 * 60),
+    SESSION_ABSOLUTE_TIMEOUT_SECONDS: z.coerce
+      .number()
+      .positive()
+      .default(12 * 60 * 60),
     /** argon2id cost; the defaults follow OWASP's minimum (19 MiB, 2 passes). Tests lower them. */
     ARGON2_MEMORY_KIB: z.coerce.number().int().min(8).default(19_456),
     ARGON2_TIME_COST: z.coerce.number().int().min(1).default(2),
     SIGN_IN_MAX_FAILURES: z.coerce.number().int().min(1).default(5),
     SIGN_IN_MAX_FAILURES_PER_IP: z.coerce.number().int().min(1).default(50),
-    SIGN_IN_FAILURE_WINDOW_SECONDS: z.coerce.number().positive().default(15 * 60),
-    SIGN_IN_LOCK_SECONDS: z.coerce.number().positive().default(15 * 60),
+    SIGN_IN_FAILURE_WINDOW_SECONDS: z.coerce
+      .number()
+      .positive()
+      .default(15 * 60),
+    SIGN_IN_LOCK_SECONDS: z.coerce
+      .number()
+      .positive()
+      .default(15 * 60),
     PASSWORD_RESET_REQUESTS_PER_IP: z.coerce.number().int().min(1).default(20),
   })
   .superRefine((c, ctx) => {
     if (c.NODE_ENV === 'production' && !c.SESSION_SECRET) {
-      ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'is required in production' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['SESSION_SECRET'],
+        message: 'is required in production',
+      });
     }
   });
 
@@ -60,7 +78,12 @@ export interface AppConfig {
   trustProxy: boolean;
   session: { idleTimeoutMs: number; absoluteTimeoutMs: number };
   argon2: { memoryKib: number; timeCost: number };
-  signInThrottle: { maxFailures: number; maxFailuresPerIp: number; windowMs: number; lockMs: number };
+  signInThrottle: {
+    maxFailures: number;
+    maxFailuresPerIp: number;
+    windowMs: number;
+    lockMs: number;
+  };
   /** Password-reset requests one address may make in 15 minutes. */
   passwordResetRequestsPerIp: number;
 }

@@ -1,4 +1,10 @@
-import { AbilityBuilder, createMongoAbility, subject, type ForcedSubject, type MongoAbility } from '@casl/ability';
+import {
+  AbilityBuilder,
+  createMongoAbility,
+  subject,
+  type ForcedSubject,
+  type MongoAbility,
+} from '@casl/ability';
 import type { Role } from './roles.ts';
 
 /**
@@ -66,7 +72,15 @@ export function defineAbilityFor({ userId, roles }: AbilityInput): AppAbility {
   const has = (r: Role) => roles.includes(r);
 
   // Every member sees the organization, its people, projects, worksheets and model library.
-  can('read', ['Organization', 'Member', 'Project', 'Worksheet', 'Revision', 'Finding', 'ModelLibrary']);
+  can('read', [
+    'Organization',
+    'Member',
+    'Project',
+    'Worksheet',
+    'Revision',
+    'Finding',
+    'ModelLibrary',
+  ]);
 
   if (has('admin')) {
     can(['read', 'create', 'update', 'delete'], 'Invitation');
@@ -80,10 +94,12 @@ export function defineAbilityFor({ userId, roles }: AbilityInput): AppAbility {
     can('read', 'AuditLog');
     can('export', ['Worksheet', 'Revision', 'AuditLog']);
     can('assign', 'Worksheet');
+    can('update', 'Project'); // rename, re-code, archive and restore projects
     can('read', 'OrgSettings');
   }
   if (has('author')) {
     can('create', ['Project', 'Worksheet']);
+    can('update', 'Project');
     can(['update', 'submit'], 'Worksheet', { authorId: userId });
     can('manage', 'ModelLibrary');
     can('update', 'Finding'); // answering findings on their own worksheets is checked per object

@@ -8,3 +8,7 @@ export * from './api/password-policy.ts';
 export * from './api/auth.ts';
 export * from './api/members.ts';
 export * from './api/orgs.ts';
+export * from './api/canonical-json.ts';
+export * from './api/projects.ts';
+export * from './api/worksheets.ts';
+export * from './api/model-library.ts';

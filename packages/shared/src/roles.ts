@@ -16,5 +16,6 @@ export const roleDescriptions: Record<Role, string> = {
   author: 'Creates and edits worksheets, answers findings, submits revisions',
   checker: 'Reviews submitted revisions, raises and closes findings, returns or accepts',
   approver: 'Signs off checked revisions, or returns them',
-  manager: 'Reads everything in the organization, the audit log and exports; assigns checkers and approvers',
+  manager:
+    'Reads everything in the organization, the audit log and exports; assigns checkers and approvers',
 };

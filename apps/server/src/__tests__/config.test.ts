@@ -26,10 +26,14 @@ describe('loadConfig', () => {
   });
 
   it('when production runs without a session secret, then start-up is refused', () => {
-    expect(() => loadConfig({ NODE_ENV: 'production' })).toThrow(/SESSION_SECRET: is required in production/);
+    expect(() => loadConfig({ NODE_ENV: 'production' })).toThrow(
+      /SESSION_SECRET: is required in production/,
+    );
   });
 
   it('when the session secret is short, then it is refused', () => {
-    expect(() => loadConfig({ SESSION_SECRET: 'short' })).toThrow(/SESSION_SECRET: must be at least 32 characters/);
+    expect(() => loadConfig({ SESSION_SECRET: 'short' })).toThrow(
+      /SESSION_SECRET: must be at least 32 characters/,
+    );
   });
 });

@@ -26,7 +26,8 @@ export function createMigrator(sequelize: Sequelize): Umzug<MigrationContext> {
     .sort();
   return new Umzug<MigrationContext>({
     migrations: files.map((file) => {
-      const load = async () => (await import(pathToFileURL(join(migrationsDir, file)).href)) as MigrationModule;
+      const load = async () =>
+        (await import(pathToFileURL(join(migrationsDir, file)).href)) as MigrationModule;
       return {
         name: file.replace(/\.ts$/, ''),
         up: async ({ context }) => (await load()).up(context),

@@ -13,8 +13,10 @@ export const apiNotFound: RequestHandler = (req, _res, next) => {
 };
 
 function fromBodyParser(err: { type?: string; status?: number }): AppError | undefined {
-  if (err.type === 'entity.parse.failed') return new AppError('bad-request', 'The request body is not valid JSON');
-  if (err.type === 'entity.too.large') return new AppError('payload-too-large', 'The request body is too large');
+  if (err.type === 'entity.parse.failed')
+    return new AppError('bad-request', 'The request body is not valid JSON');
+  if (err.type === 'entity.too.large')
+    return new AppError('payload-too-large', 'The request body is too large');
   return undefined;
 }
 

@@ -12,7 +12,11 @@ export function serveWeb(distDir: string): Router {
   const indexHtml = join(distDir, 'index.html');
   router.use(
     '/assets',
-    express.static(join(distDir, 'assets'), { immutable: true, maxAge: '365d', fallthrough: false }),
+    express.static(join(distDir, 'assets'), {
+      immutable: true,
+      maxAge: '365d',
+      fallthrough: false,
+    }),
   );
   router.use(express.static(distDir, { index: false, maxAge: 0 }));
   router.get(/^\/(?!api\/).*/, (_req, res, next) => {

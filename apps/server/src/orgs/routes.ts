@@ -4,6 +4,9 @@ import { requireUser } from '../auth/require-user.ts';
 import { memberRoutes } from '../members/routes.ts';
 import { invitationAdminRoutes } from '../invitations/routes.ts';
 import { auditRoutes } from '../audit/routes.ts';
+import { projectRoutes } from '../projects/routes.ts';
+import { worksheetRoutes } from '../worksheets/routes.ts';
+import { modelLibraryRoutes } from '../models/routes.ts';
 import { authorize, orgContextOf, orgScope } from './org-scope.ts';
 import { getOrganization } from './organizations.ts';
 
@@ -20,5 +23,8 @@ export function orgRoutes(svc: Services): Router {
   router.use('/members', memberRoutes());
   router.use('/invitations', invitationAdminRoutes(svc));
   router.use('/audit', auditRoutes());
+  router.use('/projects', projectRoutes());
+  router.use('/worksheets', worksheetRoutes());
+  router.use('/models', modelLibraryRoutes());
   return router;
 }

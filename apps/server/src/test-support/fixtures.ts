@@ -2,6 +2,8 @@ import { randomBytes } from 'node:crypto';
 import request from 'supertest';
 import { QueryTypes } from 'sequelize';
 import type { Role } from '@biasproof/shared';
+import { analysisSettingsSchema, type WorksheetDraft } from '@biasproof/calc';
+import { computeRevision } from '../calc/compute.ts';
 import { inTransaction } from '../db/transactions.ts';
 import { createPasswordHasher } from '../auth/passwords.ts';
 import { ensureAccount, ensureMembership, ensureOrganization } from '../orgs/provisioning.ts';
@@ -100,4 +102,99 @@ export function sessionIdFromCookies(setCookie: string[] | string | undefined): 
   if (!raw) return undefined;
   const value = decodeURIComponent(raw);
   return value.startsWith('s:') ? value.slice(2, value.lastIndexOf('.')) : value;
+}
+
+/** A tiny solvable circuit: a 5 V divider driven by V1, output at node `out`. */
+export const dividerDraft = (): WorksheetDraft => ({
+  circuit: {
+    title: 'fixture divider',
+    elements: [
+      { kind: 'V', name: 'V1', nodes: ['in', '0'], dc: 5 },
+      { kind: 'R', name: 'R1', nodes: ['in', 'out'], value: 1000 },
+      { kind: 'R', name: 'R2', nodes: ['out', '0'], value: 1000 },
+    ],
+    models: [],
+  },
+  settings: analysisSettingsSchema.parse({ inputSource: 'V1', outputNode: 'out' }),
+});
+
+/** A project inserted directly (no API, no audit event), for tests that need one to exist. */
+export async function insertProjectRow(
+  t: TestApp,
+  orgId: string,
+  createdByUserId: string,
+  fields: { name?: string; code?: string; archived?: boolean } = {},
+): Promise<string> {
+  return inTransaction(t.sequelize, { orgId }, async (tx) => {
+    const row = await tx.models.Project.create(
+      {
+        orgId,
+        name: fields.name ?? 'Fixture project',
+        code: fields.code ?? `FX-${unique().toUpperCase()}`,
+        archived: fields.archived ?? false,
+        createdByUserId,
+      },
+      { transaction: tx.transaction },
+    );
+    return row.id;
+  });
+}
+
+/**
+ * A draft worksheet at revision A inserted directly, with the divider circuit computed by the
+ * engine. `engineVersion` pretends an older engine computed it (a later recompute then stores
+ * new results).
+ */
+export async function insertWorksheetRow(
+  t: TestApp,
+  w: {
+    orgId: string;
+    projectId: string;
+    authorId: string;
+    checkerId?: string | null;
+    title?: string;
+    engineVersion?: string;
+  },
+): Promise<string> {
+  return inTransaction(t.sequelize, { orgId: w.orgId }, async (tx) => {
+    const row = await tx.models.Worksheet.create(
+      {
+        orgId: w.orgId,
+        projectId: w.projectId,
+        title: w.title ?? 'Fixture divider',
+        authorUserId: w.authorId,
+        checkerUserId: w.checkerId ?? null,
+      },
+      { transaction: tx.transaction },
+    );
+    const computed = computeRevision(dividerDraft());
+    await tx.models.Revision.create(
+      {
+        ...computed,
+        engineVersion: w.engineVersion ?? computed.engineVersion,
+        orgId: w.orgId,
+        worksheetId: row.id,
+        letter: 'A',
+        createdByUserId: w.authorId,
+      },
+      { transaction: tx.transaction },
+    );
+    return row.id;
+  });
+}
+
+/** A model library entry inserted directly. */
+export async function insertModelRow(
+  t: TestApp,
+  orgId: string,
+  createdByUserId: string,
+  name = `FXD${unique()}`,
+): Promise<string> {
+  return inTransaction(t.sequelize, { orgId }, async (tx) => {
+    const row = await tx.models.ModelLibraryEntry.create(
+      { orgId, name, kind: 'D', params: { IS: 1e-14, N: 1.8 }, createdByUserId },
+      { transaction: tx.transaction },
+    );
+    return row.id;
+  });
 }

@@ -6,14 +6,33 @@ import type { Action, SubjectName } from '@biasproof/shared';
 import type { Role } from '@biasproof/shared';
 import { inTransaction } from '../db/transactions.ts';
 import { newLinkToken } from '../auth/tokens.ts';
-import { createOrgWithMembers, systemRows, uniqueEmail, type OrgFixture } from './fixtures.ts';
+import {
+  createOrgWithMembers,
+  insertModelRow,
+  insertProjectRow,
+  insertWorksheetRow,
+  systemRows,
+  unique,
+  uniqueEmail,
+  type OrgFixture,
+} from './fixtures.ts';
 import type { TestApp } from './test-app.ts';
 
-/** An organization to act in: the actor (roles under test), an admin who stays, a member to act on, a pending invitation. */
+/**
+ * An organization to act in: the actor (roles under test), an admin who stays, a member to act
+ * on, a pending invitation, a project, a draft worksheet authored by the actor, another one
+ * authored by the member with a checker assigned, and a library model.
+ */
 export interface OrgWorld extends OrgFixture {
   actorId: string;
   targetUserId: string;
   invitationId: string;
+  projectId: string;
+  /** Authored by the actor; its results carry an older engine version, so a recompute changes them. */
+  worksheetId: string;
+  /** Authored by the target member; the keeper is assigned as its checker. */
+  assignedWorksheetId: string;
+  modelId: string;
 }
 
 export async function createOrgWorld(t: TestApp, actorRoles: Role[]): Promise<OrgWorld> {
@@ -28,7 +47,48 @@ export async function createOrgWorld(t: TestApp, actorRoles: Role[]): Promise<Or
     fx.people.keeper!.id,
     uniqueEmail('invitee'),
   );
-  return { ...fx, actorId: fx.people.actor!.id, targetUserId: fx.people.target!.id, invitationId };
+  const [actorId, keeperId, targetUserId] = [
+    fx.people.actor!.id,
+    fx.people.keeper!.id,
+    fx.people.target!.id,
+  ];
+  const projectId = await insertProjectRow(t, fx.org.id, keeperId);
+  const worksheetId = await insertWorksheetRow(t, {
+    orgId: fx.org.id,
+    projectId,
+    authorId: actorId,
+    engineVersion: '0.0.0-fixture',
+  });
+  const assignedWorksheetId = await insertWorksheetRow(t, {
+    orgId: fx.org.id,
+    projectId,
+    authorId: targetUserId,
+    checkerId: keeperId,
+  });
+  const modelId = await insertModelRow(t, fx.org.id, keeperId);
+  return {
+    ...fx,
+    actorId,
+    targetUserId,
+    invitationId,
+    projectId,
+    worksheetId,
+    assignedWorksheetId,
+    modelId,
+  };
+}
+
+/** The world with every object id malformed (the organization id stays). */
+export function malformedIds(w: OrgWorld): OrgWorld {
+  return {
+    ...w,
+    targetUserId: 'x',
+    invitationId: '1; DROP TABLE users',
+    projectId: 'not-a-uuid',
+    worksheetId: "' OR 1=1 --",
+    assignedWorksheetId: '00000000-0000-0000-0000',
+    modelId: 'model;1',
+  };
 }
 
 export async function createPendingInvitation(
@@ -63,7 +123,7 @@ export interface OrgRouteCase {
   objectFields?: (w: OrgWorld) => Record<string, unknown>;
   /** The path after `/api/orgs/:orgId`, with the ids of `ids` (usually the same world). */
   path: (ids: OrgWorld) => string;
-  body?: () => object;
+  body?: (w: OrgWorld) => object;
   /** The 2xx status of an allowed call. */
   success: number;
   /** True when the path names an object inside the organization (then ids from another organization must 404 too). */
@@ -165,6 +225,174 @@ export const orgRoutes: OrgRouteCase[] = [
     success: 200,
     namesObject: false,
   },
+  {
+    name: 'GET /projects',
+    method: 'get',
+    action: 'read',
+    subject: 'Project',
+    path: () => '/projects',
+    success: 200,
+    namesObject: false,
+  },
+  {
+    name: 'POST /projects',
+    method: 'post',
+    action: 'create',
+    subject: 'Project',
+    path: () => '/projects',
+    body: () => ({ name: 'Matrix project', code: `MX-${unique()}` }),
+    success: 201,
+    namesObject: false,
+  },
+  {
+    name: 'GET /projects/:id',
+    method: 'get',
+    action: 'read',
+    subject: 'Project',
+    path: (w) => `/projects/${w.projectId}`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'PATCH /projects/:id',
+    method: 'patch',
+    action: 'update',
+    subject: 'Project',
+    path: (w) => `/projects/${w.projectId}`,
+    body: () => ({ description: 'Changed by the matrix', archived: true }),
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'GET /worksheets',
+    method: 'get',
+    action: 'read',
+    subject: 'Worksheet',
+    path: () => '/worksheets?assignedToMe=false&sort=title',
+    success: 200,
+    namesObject: false,
+  },
+  {
+    name: 'POST /worksheets',
+    method: 'post',
+    action: 'create',
+    subject: 'Worksheet',
+    path: () => '/worksheets',
+    body: (w) => ({ projectId: w.projectId, title: 'Matrix worksheet' }),
+    success: 201,
+    namesObject: false,
+  },
+  {
+    name: 'GET /worksheets/:id',
+    method: 'get',
+    action: 'read',
+    subject: 'Worksheet',
+    path: (w) => `/worksheets/${w.worksheetId}`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'PATCH /worksheets/:id',
+    method: 'patch',
+    action: 'update',
+    subject: 'Worksheet',
+    objectFields: (w) => ({ authorId: w.actorId }),
+    path: (w) => `/worksheets/${w.worksheetId}`,
+    body: () => ({ version: 1, title: 'Renamed by the matrix' }),
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'PATCH /worksheets/:id (assign)',
+    method: 'patch',
+    action: 'assign',
+    subject: 'Worksheet',
+    objectFields: (w) => ({ authorId: w.targetUserId }),
+    path: (w) => `/worksheets/${w.assignedWorksheetId}`,
+    body: () => ({ version: 1, checkerId: null }),
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'POST /worksheets/:id/compute',
+    method: 'post',
+    action: 'update',
+    subject: 'Worksheet',
+    objectFields: (w) => ({ authorId: w.actorId }),
+    path: (w) => `/worksheets/${w.worksheetId}/compute`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'GET /worksheets/:id/deck',
+    method: 'get',
+    action: 'read',
+    subject: 'Worksheet',
+    path: (w) => `/worksheets/${w.worksheetId}/deck`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'POST /worksheets/:id/deck',
+    method: 'post',
+    action: 'update',
+    subject: 'Worksheet',
+    objectFields: (w) => ({ authorId: w.actorId }),
+    path: (w) => `/worksheets/${w.worksheetId}/deck`,
+    body: () => ({
+      text: 'matrix deck\nV1 in 0 9\nR1 in out 2k2\nR2 out 0 1k\n.op\n.end\n',
+      version: 1,
+    }),
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'GET /models',
+    method: 'get',
+    action: 'read',
+    subject: 'ModelLibrary',
+    path: () => '/models',
+    success: 200,
+    namesObject: false,
+  },
+  {
+    name: 'POST /models',
+    method: 'post',
+    action: 'create',
+    subject: 'ModelLibrary',
+    path: () => '/models',
+    body: () => ({ name: `MX${unique()}`, kind: 'NPN', params: { IS: 1e-15, BF: 150 } }),
+    success: 201,
+    namesObject: false,
+  },
+  {
+    name: 'GET /models/:id',
+    method: 'get',
+    action: 'read',
+    subject: 'ModelLibrary',
+    path: (w) => `/models/${w.modelId}`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'PATCH /models/:id',
+    method: 'patch',
+    action: 'update',
+    subject: 'ModelLibrary',
+    path: (w) => `/models/${w.modelId}`,
+    body: () => ({ notes: 'Changed by the matrix' }),
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'DELETE /models/:id',
+    method: 'delete',
+    action: 'delete',
+    subject: 'ModelLibrary',
+    path: (w) => `/models/${w.modelId}`,
+    success: 204,
+    namesObject: true,
+  },
 ];
 
 /** Everything an org-scoped route could change, to compare before and after a refused call. */
@@ -188,6 +416,28 @@ export async function orgSnapshot(t: TestApp, orgId: string) {
     users: await systemRows(
       t,
       'SELECT u.id, u.name, u.password_hash, u.disabled FROM users u JOIN memberships m ON m.user_id = u.id WHERE m.org_id = $1 ORDER BY u.id',
+      [orgId],
+    ),
+    projects: await systemRows(
+      t,
+      'SELECT id, name, code, description, archived, updated_at FROM projects WHERE org_id = $1 ORDER BY id',
+      [orgId],
+    ),
+    worksheets: await systemRows(
+      t,
+      `SELECT id, project_id, title, description, author_user_id, checker_user_id, approver_user_id, state,
+              current_revision, version, updated_at FROM worksheets WHERE org_id = $1 ORDER BY id`,
+      [orgId],
+    ),
+    revisions: await systemRows(
+      t,
+      `SELECT worksheet_id, letter, content_hash, engine_version, frozen, updated_at
+         FROM revisions WHERE org_id = $1 ORDER BY worksheet_id, letter`,
+      [orgId],
+    ),
+    models: await systemRows(
+      t,
+      'SELECT id, name, kind, params, ratings, notes, updated_at FROM model_library_entries WHERE org_id = $1 ORDER BY id',
       [orgId],
     ),
     auditHead: await systemRows(

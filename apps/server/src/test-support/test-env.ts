@@ -2,7 +2,10 @@
 // instance on free ports. Running these tests without it fails with a clear message.
 function required(name: string): string {
   const value = process.env[name];
-  if (!value) throw new Error(`${name} is not set: run the server tests through \`npm test\` (e.g. npm test -- --project server)`);
+  if (!value)
+    throw new Error(
+      `${name} is not set: run the server tests through \`npm test\` (e.g. npm test -- --project server)`,
+    );
   return value;
 }
 

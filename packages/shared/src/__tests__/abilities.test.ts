@@ -39,7 +39,9 @@ describe('ability rules', () => {
     const a = defineAbilityFor({ userId: me, roles: ['author', 'checker', 'approver'] });
     expect(a.can('check', subject('Revision', { authorId: other, checkerId: null }))).toBe(true);
     expect(a.can('check', subject('Revision', { authorId: me, checkerId: null }))).toBe(false);
-    expect(a.can('sign', subject('Revision', { authorId: other, checkerId: 'u-third' }))).toBe(true);
+    expect(a.can('sign', subject('Revision', { authorId: other, checkerId: 'u-third' }))).toBe(
+      true,
+    );
     expect(a.can('sign', subject('Revision', { authorId: me, checkerId: 'u-third' }))).toBe(false);
     expect(a.can('sign', subject('Revision', { authorId: other, checkerId: me }))).toBe(false);
   });

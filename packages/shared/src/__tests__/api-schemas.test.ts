@@ -12,13 +12,21 @@ describe('shared API schemas', () => {
   });
 
   it('error bodies carry a code, a message and optional field messages', () => {
-    expect(apiErrorBodySchema.safeParse({ error: { code: 'not-found', message: 'x' } }).success).toBe(true);
-    expect(apiErrorBodySchema.safeParse({ error: { code: 'validation-failed', message: 'x', fields: { email: 'bad' } } }).success).toBe(true);
+    expect(
+      apiErrorBodySchema.safeParse({ error: { code: 'not-found', message: 'x' } }).success,
+    ).toBe(true);
+    expect(
+      apiErrorBodySchema.safeParse({
+        error: { code: 'validation-failed', message: 'x', fields: { email: 'bad' } },
+      }).success,
+    ).toBe(true);
     expect(apiErrorBodySchema.safeParse({ message: 'x' }).success).toBe(false);
   });
 
   it('sign-in trims the e-mail and explains each bad field', () => {
-    expect(signInRequestSchema.parse({ email: '  lena@quietbias.example ', password: 'p' }).email).toBe('lena@quietbias.example');
+    expect(
+      signInRequestSchema.parse({ email: '  lena@quietbias.example ', password: 'p' }).email,
+    ).toBe('lena@quietbias.example');
     const r = signInRequestSchema.safeParse({ email: 'lena', password: '' });
     expect(r.success).toBe(false);
     const messages = r.error?.issues.map((i) => `${i.path.join('.')}: ${i.message}`);

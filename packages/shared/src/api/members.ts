@@ -18,7 +18,9 @@ export type Member = z.infer<typeof memberSchema>;
 /** `PATCH /api/orgs/:orgId/members/:userId`: replace roles and/or disable. */
 export const updateMemberRequestSchema = z
   .object({ roles: roleListSchema.optional(), disabled: z.boolean().optional() })
-  .refine((b) => b.roles !== undefined || b.disabled !== undefined, { message: 'Nothing to change.' });
+  .refine((b) => b.roles !== undefined || b.disabled !== undefined, {
+    message: 'Nothing to change.',
+  });
 
 /** A row of `GET /api/orgs/:orgId/invitations` (pending ones unless `?status=all`). */
 export const invitationSchema = z.object({
@@ -33,7 +35,10 @@ export const invitationSchema = z.object({
 export type Invitation = z.infer<typeof invitationSchema>;
 
 /** `POST /api/orgs/:orgId/invitations` */
-export const createInvitationRequestSchema = z.object({ email: emailSchema, roles: roleListSchema });
+export const createInvitationRequestSchema = z.object({
+  email: emailSchema,
+  roles: roleListSchema,
+});
 export type CreateInvitationRequest = z.input<typeof createInvitationRequestSchema>;
 
 /** `GET /api/invitations/:token` (public): what the invitee is joining. */
@@ -51,8 +56,14 @@ export const invitationPreviewSchema = z.object({
  * `POST /api/invitations/:token/accept`. A new person sends name and password; a person who is
  * signed in with the invited e-mail sends an empty body and joins with that account.
  */
-export const acceptInvitationNewAccountSchema = z.object({ name: personNameSchema, password: newPasswordSchema });
-export const acceptInvitationRequestSchema = z.union([acceptInvitationNewAccountSchema, z.object({}).strict()]);
+export const acceptInvitationNewAccountSchema = z.object({
+  name: personNameSchema,
+  password: newPasswordSchema,
+});
+export const acceptInvitationRequestSchema = z.union([
+  acceptInvitationNewAccountSchema,
+  z.object({}).strict(),
+]);
 
 /** Query of `GET /api/orgs/:orgId/invitations`: pending ones (default) or all. */
 export const invitationListQuerySchema = z.object({

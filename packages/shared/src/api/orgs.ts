@@ -27,7 +27,9 @@ const isoDateOrDateTime = z
   .string()
   .trim()
   .refine(
-    (s) => /^\d{4}-\d{2}-\d{2}(T\d{2}:\d{2}(:\d{2}(\.\d{1,6})?)?(Z|[+-]\d{2}:\d{2}))?$/.test(s) && !Number.isNaN(Date.parse(s)),
+    (s) =>
+      /^\d{4}-\d{2}-\d{2}(T\d{2}:\d{2}(:\d{2}(\.\d{1,6})?)?(Z|[+-]\d{2}:\d{2}))?$/.test(s) &&
+      !Number.isNaN(Date.parse(s)),
     'Use a date like 2026-12-01 or a date-time like 2026-12-01T09:30:00Z.',
   );
 
@@ -36,11 +38,21 @@ const isoDateOrDateTime = z
  * (ISO date or date-time, inclusive; a bare `to` date includes that whole day, UTC), paging.
  */
 export const auditListQuerySchema = z.object({
-  action: z.string().trim().min(1).max(100, 'An action name has at most 100 characters.').optional(),
+  action: z
+    .string()
+    .trim()
+    .min(1)
+    .max(100, 'An action name has at most 100 characters.')
+    .optional(),
   actor: z.uuid('Choose a person from the list.').optional(),
   from: isoDateOrDateTime.optional(),
   to: isoDateOrDateTime.optional(),
-  limit: z.coerce.number().int('Use a whole number.').min(1, 'Use 1 to 500.').max(500, 'Use 1 to 500.').default(100),
+  limit: z.coerce
+    .number()
+    .int('Use a whole number.')
+    .min(1, 'Use 1 to 500.')
+    .max(500, 'Use 1 to 500.')
+    .default(100),
   offset: z.coerce.number().int('Use a whole number.').min(0, 'Use 0 or more.').default(0),
 });
 export type AuditListQuery = z.input<typeof auditListQuerySchema>;

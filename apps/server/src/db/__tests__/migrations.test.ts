@@ -28,22 +28,31 @@ describe('migrations', () => {
         ORDER BY relname`,
     );
     expect(rows).toEqual(
-      ['audit_chain_heads', 'audit_events', 'invitations', 'memberships', 'organizations'].map((relname) => ({
-        relname,
-        relrowsecurity: true,
-        relforcerowsecurity: true,
-      })),
+      ['audit_chain_heads', 'audit_events', 'invitations', 'memberships', 'organizations'].map(
+        (relname) => ({
+          relname,
+          relrowsecurity: true,
+          relforcerowsecurity: true,
+        }),
+      ),
     );
   });
 
   it('when an e-mail is stored twice or in capitals, then the users table refuses it', async () => {
     const email = `case.twin.${Date.now()}@fixture.example`;
-    await t.sequelize.query(`INSERT INTO users (email, name, password_hash) VALUES ($1, 'A', 'x')`, { bind: [email] });
+    await t.sequelize.query(
+      `INSERT INTO users (email, name, password_hash) VALUES ($1, 'A', 'x')`,
+      { bind: [email] },
+    );
     await expect(
-      t.sequelize.query(`INSERT INTO users (email, name, password_hash) VALUES ($1, 'B', 'x')`, { bind: [email] }),
+      t.sequelize.query(`INSERT INTO users (email, name, password_hash) VALUES ($1, 'B', 'x')`, {
+        bind: [email],
+      }),
     ).rejects.toMatchObject({ parent: { constraint: 'users_email_lower_key' } });
     await expect(
-      t.sequelize.query(`INSERT INTO users (email, name, password_hash) VALUES ($1, 'C', 'x')`, { bind: [email.toUpperCase()] }),
+      t.sequelize.query(`INSERT INTO users (email, name, password_hash) VALUES ($1, 'C', 'x')`, {
+        bind: [email.toUpperCase()],
+      }),
     ).rejects.toMatchObject({ parent: { constraint: 'users_email_check' } });
   });
 });

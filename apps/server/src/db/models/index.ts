@@ -5,6 +5,10 @@ import { defineMembership } from './membership.ts';
 import { defineInvitation } from './invitation.ts';
 import { definePasswordReset } from './password-reset.ts';
 import { defineAuditEvent } from './audit-event.ts';
+import { defineProject } from './project.ts';
+import { defineWorksheet } from './worksheet.ts';
+import { defineRevision } from './revision.ts';
+import { defineModelLibraryEntry } from './model-library-entry.ts';
 
 function defineModels(sequelize: Sequelize) {
   return {
@@ -14,6 +18,10 @@ function defineModels(sequelize: Sequelize) {
     Invitation: defineInvitation(sequelize),
     PasswordReset: definePasswordReset(sequelize),
     AuditEvent: defineAuditEvent(sequelize),
+    Project: defineProject(sequelize),
+    Worksheet: defineWorksheet(sequelize),
+    Revision: defineRevision(sequelize),
+    ModelLibraryEntry: defineModelLibraryEntry(sequelize),
   };
 }
 

@@ -23,11 +23,16 @@ describe('error middleware', () => {
   it('when an /api path has no route, then it answers 404 in the error shape', async () => {
     const res = await request(real.app).get('/api/no-such-thing?x=1');
     expect(res.status).toBe(404);
-    expect(res.body).toEqual({ error: { code: 'not-found', message: 'No API route GET /api/no-such-thing' } });
+    expect(res.body).toEqual({
+      error: { code: 'not-found', message: 'No API route GET /api/no-such-thing' },
+    });
   });
 
   it('when the JSON body is malformed, then it answers 400 bad-request', async () => {
-    const res = await request(real.app).post('/api/health').set('content-type', 'application/json').send('{"a":');
+    const res = await request(real.app)
+      .post('/api/health')
+      .set('content-type', 'application/json')
+      .send('{"a":');
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('bad-request');
   });
@@ -52,7 +57,9 @@ describe('error middleware', () => {
   });
 
   it('when zod rejects input, then it answers 400 with a message per field', async () => {
-    const parsed = z.object({ email: z.email('not an e-mail'), age: z.number() }).safeParse({ email: 'x', age: 'y' });
+    const parsed = z
+      .object({ email: z.email('not an e-mail'), age: z.number() })
+      .safeParse({ email: 'x', age: 'y' });
     const res = await request(appThrowing(parsed.error)).get('/boom');
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('validation-failed');
@@ -61,9 +68,13 @@ describe('error middleware', () => {
   });
 
   it('when an unknown error escapes, then it answers 500 without internals', async () => {
-    const res = await request(appThrowing(new Error('password=hunter2 at /srv/secret.ts:12'))).get('/boom');
+    const res = await request(appThrowing(new Error('password=hunter2 at /srv/secret.ts:12'))).get(
+      '/boom',
+    );
     expect(res.status).toBe(500);
-    expect(res.body).toEqual({ error: { code: 'internal', message: 'Something went wrong on the server' } });
+    expect(res.body).toEqual({
+      error: { code: 'internal', message: 'Something went wrong on the server' },
+    });
     expect(JSON.stringify(res.body)).not.toContain('hunter2');
   });
 });

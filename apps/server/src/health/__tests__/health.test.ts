@@ -3,7 +3,11 @@ import request from 'supertest';
 import { readFileSync } from 'node:fs';
 import { createTestApp } from '../../test-support/test-app.ts';
 
-const packageVersion = (JSON.parse(readFileSync(new URL('../../../package.json', import.meta.url), 'utf8')) as { version: string }).version;
+const packageVersion = (
+  JSON.parse(readFileSync(new URL('../../../package.json', import.meta.url), 'utf8')) as {
+    version: string;
+  }
+).version;
 
 describe('GET /api/health', () => {
   const reachable = createTestApp();

@@ -56,7 +56,7 @@ describe('role × action matrix, generated from the ability rules', () => {
           'x-csrf-token',
           csrf,
         );
-        return route.body ? req.send(route.body()) : req;
+        return route.body ? req.send(route.body(ids)) : req;
       };
 
       const own = await call(world.org.id, world);

@@ -6,6 +6,7 @@ import { signIn, type SignedInAgent } from '../../test-support/fixtures.ts';
 import {
   absentId,
   createOrgWorld,
+  malformedIds,
   orgRoutes,
   orgSnapshot,
   type OrgRouteCase,
@@ -32,7 +33,7 @@ describe('tenant isolation', () => {
       'x-csrf-token',
       actor.csrf,
     );
-    return route.body ? req.send(route.body()) : req;
+    return route.body ? req.send(route.body(ids)) : req;
   };
 
   async function expectUnchanged(
@@ -70,8 +71,7 @@ describe('tenant isolation', () => {
   it.each(orgRoutes.filter((r) => r.namesObject).map((r) => [r.name, r] as const))(
     'when %s names a malformed object id, then it answers 404',
     async (_name, route) => {
-      const malformed = { ...home, targetUserId: 'x', invitationId: '1; DROP TABLE users' };
-      await expectUnchanged(() => call(route, home.org.id, malformed));
+      await expectUnchanged(() => call(route, home.org.id, malformedIds(home)));
     },
   );
 
