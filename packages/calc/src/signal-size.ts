@@ -73,9 +73,6 @@ export interface SignalSizeResult {
   operatingPoint: OperatingPoint;
 }
 
-/** Shunt conductance that makes a capacitor hold its bias-point voltage, relative to the circuit's largest conductance. */
-const HOLD_RATIO = 1e6;
-
 /** Only a conducting junction (or an on MOSFET) makes the response nonlinear in its swing. */
 function conducts(op: DeviceOp, port: PortSwing['port']): boolean {
   if (op.kind === 'D') return op.region === 'forward';
@@ -85,25 +82,27 @@ function conducts(op: DeviceOp, port: PortSwing['port']): boolean {
 }
 const SAMPLES = 16;
 
-/** The midband version of the circuit: C → (R ‖ I) holding Q voltage, L → I holding Q current. */
+/**
+ * The midband version of the circuit: each capacitor becomes a voltage source holding its
+ * bias-point voltage (a signal short), each inductor a current source holding its bias-point
+ * current (a signal open). A capacitor whose nodes are already tied together by voltage-defined
+ * branches (sources, controlled-source outputs, capacitors held before it) has its voltage fixed
+ * by them, so it is left out instead: a second source there would close a loop of voltage
+ * sources. Holding by exact sources rather than by a huge shunt conductance keeps the matrix well
+ * conditioned, so Newton converges to the same tolerances as the bias point itself.
+ */
 function midbandCircuit(circuit: Circuit, op: OperatingPoint): Circuit {
-  const gmax = Math.max(
-    1e-3,
-    ...circuit.elements.filter((el) => el.kind === 'R').map((el) => 1 / el.value),
-  );
-  const hold = HOLD_RATIO * gmax;
   const v = (n: string): number => (n === '0' ? 0 : op.nodes[n]!);
+  const tied = nodeUnion();
+  for (const el of circuit.elements)
+    if (el.kind === 'V' || el.kind === 'E') tied.join(el.nodes[0], el.nodes[1]);
   const elements: Element[] = [];
   for (const el of circuit.elements) {
     if (el.kind === 'C') {
-      const vq = v(el.nodes[0]) - v(el.nodes[1]);
-      elements.push({ kind: 'R', name: `${el.name}.hold`, nodes: [...el.nodes], value: 1 / hold });
-      elements.push({
-        kind: 'I',
-        name: `${el.name}.q`,
-        nodes: [el.nodes[1], el.nodes[0]],
-        dc: hold * vq,
-      });
+      const [p, m] = el.nodes;
+      if (tied.same(p, m)) continue;
+      tied.join(p, m);
+      elements.push({ kind: 'V', name: `${el.name}.hold`, nodes: [p, m], dc: v(p) - v(m) });
     } else if (el.kind === 'L') {
       elements.push({
         kind: 'I',
@@ -114,6 +113,21 @@ function midbandCircuit(circuit: Circuit, op: OperatingPoint): Circuit {
     } else elements.push(el);
   }
   return { ...circuit, elements };
+}
+
+/** Which nodes are joined by voltage-defined branches (union-find over node names). */
+function nodeUnion(): { join(a: string, b: string): void; same(a: string, b: string): boolean } {
+  const parent = new Map<string, string>();
+  const root = (n: string): string => {
+    let r = n;
+    while (parent.has(r) && parent.get(r) !== r) r = parent.get(r)!;
+    parent.set(n, r);
+    return r;
+  };
+  return {
+    join: (a, b) => parent.set(root(a), root(b)),
+    same: (a, b) => root(a) === root(b),
+  };
 }
 
 export function checkSignalSize(

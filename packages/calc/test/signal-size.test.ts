@@ -72,3 +72,52 @@ describe('signal-size check at midband of a capacitively coupled stage', () => {
     expect(r.errorPercent).toBeLessThan(5);
   });
 });
+
+// Example values for tests: a divider-biased common-emitter stage with input, emitter-bypass and
+// output capacitors and a decoupling capacitor straight across the supply.
+const coupledStage = (bypassAcrossSupply: boolean): CircuitInput => ({
+  elements: [
+    { kind: 'V', name: 'VCC', nodes: ['vcc', '0'], dc: 12 },
+    { kind: 'V', name: 'VS', nodes: ['src', '0'], dc: 0 },
+    { kind: 'R', name: 'RSRC', nodes: ['src', 'in'], value: 600 },
+    { kind: 'C', name: 'CIN', nodes: ['in', 'b'], value: 10e-6 },
+    { kind: 'R', name: 'R1', nodes: ['vcc', 'b'], value: 47e3 },
+    { kind: 'R', name: 'R2', nodes: ['b', '0'], value: 10e3 },
+    { kind: 'R', name: 'RC', nodes: ['vcc', 'c'], value: 4.7e3 },
+    { kind: 'Q', name: 'Q1', nodes: ['c', 'b', 'e'], model: 'qn' },
+    { kind: 'R', name: 'RE1', nodes: ['e', 'e2'], value: 100 },
+    { kind: 'R', name: 'RE2', nodes: ['e2', '0'], value: 1e3 },
+    { kind: 'C', name: 'CE', nodes: ['e2', '0'], value: 100e-6 },
+    { kind: 'C', name: 'COUT', nodes: ['c', 'out'], value: 10e-6 },
+    { kind: 'R', name: 'RL', nodes: ['out', '0'], value: 22e3 },
+    ...(bypassAcrossSupply
+      ? [{ kind: 'C' as const, name: 'CDEC', nodes: ['vcc', '0'] as [string, string], value: 1e-6 }]
+      : []),
+  ],
+  models: [{ name: 'qn', kind: 'NPN', params: { IS: 12e-15, BF: 220, BR: 4, VAF: 90, VAR: 20 } }],
+});
+
+describe('signal-size check of a capacitively coupled common-emitter stage', () => {
+  it.each([false, true])(
+    'converges with coupling and bypass capacitors held (decoupling across the supply: %s)',
+    (decoupled) => {
+      const r = checkSignalSize(coupledStage(decoupled), {
+        input: 'VS',
+        amplitude: 2e-3,
+        output: 'out',
+      });
+      // Gain of an emitter-degenerated stage ≈ −(RC‖RL)/(re + RE1) scaled by the source divider;
+      // with about 1.3 mA, re ≈ 20 Ω: roughly −(3.87k)/(120) ≈ −32 before the source loss.
+      expect(r.linearGain).toBeLessThan(-20);
+      expect(r.linearGain).toBeGreaterThan(-40);
+      expect(r.errorPercent).toBeLessThan(r.errorLimit);
+      expect(r.pass).toBe(true);
+    },
+  );
+
+  it('a larger signal leaves the linear region and fails the 10 % limit', () => {
+    const r = checkSignalSize(coupledStage(false), { input: 'VS', amplitude: 0.3, output: 'out' });
+    expect(r.errorPercent).toBeGreaterThan(10);
+    expect(r.pass).toBe(false);
+  });
+});
