@@ -1,5 +1,7 @@
 /**
- * Dense LU factorization with partial pivoting, in place on a row-major Float64Array.
+ * Dense LU factorization with partial pivoting, in place on a row-major Float64Array. Newton
+ * uses the one-pass {@link luFactorSolve}; luFactor and luSolve are the two-phase form it is
+ * equal to, bit for bit (test/lu.test.ts).
  *
  * The matrix may be stored with a row stride larger than its order: the MNA assembly keeps one
  * extra row and column as a sink for ground stamps so that device loads need no branches; the
@@ -92,4 +94,101 @@ export function luSolve(
     }
     b[i] = s / a[row + i]!;
   }
+}
+
+/**
+ * {@link luFactor} followed by {@link luSolve}, in one pass and with the very same arithmetic:
+ * `b` is permuted and forward-substituted while `a` is eliminated, and the next column's pivot
+ * is searched while the rows below the pivot are updated. Every entry of `b` and of U sees the
+ * same operations in the same order as in the two-phase form (a row's multipliers are applied
+ * to its right-hand side in ascending column order, zero multipliers skipped; U's row i is
+ * back-substituted over its nonzeros in ascending column order), so the solution is the same
+ * to the last bit. What goes is the passes over the matrix that only the two-phase form needs:
+ * L is never stored (it is applied to `b` at once), so a row exchange moves only the columns
+ * still to be eliminated, and the back substitution visits only the nonzeros of U recorded
+ * while eliminating. Solves in place in `b`; `a` is left holding U above the diagonal and
+ * scratch below it. `cols` is scratch of length ≥ n·n + n. Returns −1, or the column at which
+ * no usable pivot was found (`a` and `b` are then partly processed).
+ */
+export function luFactorSolve(
+  a: Float64Array,
+  n: number,
+  stride: number,
+  b: Float64Array,
+  cols: Int32Array,
+): number {
+  // cols[k·n …] lists the nonzero columns right of the diagonal in U's row k, cols[n·n + k] their number.
+  const counts = n * n;
+  // Pivot of column 0: the first row with the largest magnitude.
+  let p = 0;
+  let max = Math.abs(a[0]!);
+  for (let i = 1; i < n; i++) {
+    const v = Math.abs(a[i * stride]!);
+    if (v > max) {
+      max = v;
+      p = i;
+    }
+  }
+  for (let k = 0; k < n; k++) {
+    if (!(max > 0) || max === Infinity) return k;
+    const rowK = k * stride;
+    const list = k * n;
+    let count = 0;
+    if (p !== k) {
+      const rowP = p * stride;
+      const d = a[rowP + k]!;
+      a[rowP + k] = a[rowK + k]!;
+      a[rowK + k] = d;
+      for (let j = k + 1; j < n; j++) {
+        const u = a[rowP + j]!;
+        a[rowP + j] = a[rowK + j]!;
+        a[rowK + j] = u;
+        if (u !== 0) cols[list + count++] = j;
+      }
+      const t = b[k]!;
+      b[k] = b[p]!;
+      b[p] = t;
+    } else {
+      for (let j = k + 1; j < n; j++) if (a[rowK + j] !== 0) cols[list + count++] = j;
+    }
+    cols[counts + k] = count;
+    const inv = 1 / a[rowK + k]!;
+    const bk = b[k]!;
+    const next = k + 1;
+    p = next;
+    max = 0;
+    for (let i = next; i < n; i++) {
+      const rowI = i * stride;
+      const m = a[rowI + k]!;
+      if (m !== 0) {
+        const f = m * inv;
+        for (let t = list; t < list + count; t++) {
+          const j = cols[t]!;
+          a[rowI + j]! -= f * a[rowK + j]!;
+        }
+        // luSolve skips a zero multiplier (m·inv may underflow to 0 when m is not).
+        if (f !== 0) b[i]! -= f * bk;
+      }
+      // The pivot search of column k + 1, as luFactor does it once this step is done: row i
+      // is final for column k + 1 now.
+      const v = Math.abs(a[rowI + next]!);
+      if (i === next) max = v;
+      else if (v > max) {
+        max = v;
+        p = i;
+      }
+    }
+  }
+  for (let i = n - 1; i >= 0; i--) {
+    const row = i * stride;
+    const list = i * n;
+    const end = list + cols[counts + i]!;
+    let s = b[i]!;
+    for (let t = list; t < end; t++) {
+      const j = cols[t]!;
+      s -= a[row + j]! * b[j]!;
+    }
+    b[i] = s / a[row + i]!;
+  }
+  return -1;
 }

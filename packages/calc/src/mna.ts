@@ -6,6 +6,7 @@ import { diodeAtTemperature, makeDiodeStamp } from './models/diode.ts';
 import { makeMosfetStamp } from './models/mosfet-stamp.ts';
 import { mosfetAtTemperature } from './models/mosfet.ts';
 import type { DeviceStamp } from './models/stamp.ts';
+import type { ResultShapes } from './operating-point.ts';
 import { stampLinear } from './mna-linear.ts';
 import { GROUND, type ValidatedCircuit } from './topology.ts';
 
@@ -60,6 +61,11 @@ export interface MnaSystem {
   g0: Float64Array;
   /** Independent sources at full value (scaled during source stepping). */
   b0: Float64Array;
+  /**
+   * The result records' keys, made by the first result built from this system and shared by
+   * the variants a prepared circuit derives from it (their element names are the same).
+   */
+  resultShapes: { value: ResultShapes | undefined };
 }
 
 /** Builds the stamp of a diode under a simplified law (see assumed-state.ts). */
@@ -118,7 +124,19 @@ export function buildSystem(v: ValidatedCircuit, opts: BuildOptions): MnaSystem 
   const g0 = new Float64Array(linear, 0, stride * stride);
   const b0 = new Float64Array(linear, 8 * stride * stride, stride);
   stampLinear(elements, stride, g0, b0);
-  return { size, stride, ground, nodeCount, unknownNames, nodeIndex, elements, devices, g0, b0 };
+  return {
+    size,
+    stride,
+    ground,
+    nodeCount,
+    unknownNames,
+    nodeIndex,
+    elements,
+    devices,
+    g0,
+    b0,
+    resultShapes: { value: undefined },
+  };
 }
 
 /** Internal nodes of a device with series resistances, appended to `unknownNames` (name → index). */

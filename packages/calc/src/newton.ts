@@ -1,4 +1,4 @@
-import { luFactor, luSolve } from './lu.ts';
+import { luFactorSolve } from './lu.ts';
 import type { MnaSystem } from './mna.ts';
 
 /**
@@ -34,7 +34,8 @@ export interface NewtonSettings {
 export interface NewtonWork {
   a: Float64Array;
   b: Float64Array;
-  perm: Int32Array;
+  /** Scratch of luFactorSolve: U's nonzero columns, row by row, and their counts (n² + n). */
+  cols: Int32Array;
   /** Current iterate; x[ground] stays 0. */
   x: Float64Array;
   /** The assembled matrix and right-hand side before factoring, for the residual. */
@@ -49,14 +50,14 @@ export function createWork(sys: MnaSystem): NewtonWork {
   const square = n * n;
   // One backing store for all the buffers: a typed array with a store of its own costs an
   // allocation outside the heap, which would dominate setting up a small circuit.
-  const pool = new ArrayBuffer(8 * (2 * square + 3 * n) + 4 * n);
+  const pool = new ArrayBuffer(8 * (2 * square + 3 * n) + 4 * (square + n));
   return {
     a: new Float64Array(pool, 0, square),
     saved: new Float64Array(pool, 8 * square, square),
     b: new Float64Array(pool, 8 * 2 * square, n),
     x: new Float64Array(pool, 8 * (2 * square + n), n),
     rhs: new Float64Array(pool, 8 * (2 * square + 2 * n), n),
-    perm: new Int32Array(pool, 8 * (2 * square + 3 * n), n),
+    cols: new Int32Array(pool, 8 * (2 * square + 3 * n), square + n),
     kcl: { residual: 0, node: 0 },
   };
 }
@@ -131,7 +132,7 @@ function kclResidual(
  * linearization point is within RESIDUAL_TOLERANCE; the returned iterate is the updated one.
  */
 export function newton(sys: MnaSystem, work: NewtonWork, s: NewtonSettings): NewtonOutcome {
-  const { a, b, perm, x, saved, rhs, kcl } = work;
+  const { a, b, cols, x, saved, rhs, kcl } = work;
   const { size, stride, nodeCount, ground } = sys;
   let residual = Infinity;
   let worstNode = 0;
@@ -143,10 +144,9 @@ export function newton(sys: MnaSystem, work: NewtonWork, s: NewtonSettings): New
       saved.set(a);
       rhs.set(b);
     }
-    const bad = luFactor(a, size, stride, perm);
+    const bad = luFactorSolve(a, size, stride, b, cols);
     if (bad >= 0)
       return { converged: false, failure: 'singular', iterations: it, residual, worstNode: bad };
-    luSolve(a, size, stride, perm, b);
     let vmax = 0;
     let vmaxNode = 0;
     for (let i = 0; i < nodeCount; i++) {

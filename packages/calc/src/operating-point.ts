@@ -57,6 +57,33 @@ export interface OperatingPointMeta {
 /** KCL sums of buildOperatingPoint, reused across calls (a typed-array allocation costs more than the sums). */
 let kclScratch = new Float64Array(64);
 
+/**
+ * The keys of a system's result records, in result order, each record built once with
+ * placeholder values: a result clones them (one copy of a known shape) and overwrites the
+ * values, instead of adding its keys one by one. Names do not change when a prepared circuit's
+ * values are altered, so the variants of one system share them (see MnaSystem.resultShapes).
+ */
+export interface ResultShapes {
+  nodes: Record<string, number>;
+  sources: Record<string, number>;
+  devices: Record<string, DeviceOp | null>;
+  elements: Record<string, ElementOp | null>;
+}
+
+function resultShapes(sys: MnaSystem, externalCount: number): ResultShapes {
+  const nodes: Record<string, number> = {};
+  for (let i = 0; i < externalCount; i++) nodes[sys.unknownNames[i]!] = 0;
+  const sources: Record<string, number> = {};
+  const devices: Record<string, DeviceOp | null> = {};
+  const elements: Record<string, ElementOp | null> = {};
+  for (const { el, device } of sys.elements) {
+    if (device) devices[el.name] = null;
+    else if (el.kind === 'V' || el.kind === 'E') sources[el.name] = 0;
+    elements[el.name] = null;
+  }
+  return { nodes, sources, devices, elements };
+}
+
 /** Evaluates every element at the solution x and assembles the user-facing result. */
 export function buildOperatingPoint(
   sys: MnaSystem,
@@ -65,16 +92,20 @@ export function buildOperatingPoint(
 ): OperatingPoint {
   // Unknowns 0…externalCount−1 are the circuit's own nodes, in order of first appearance.
   const externalCount = sys.nodeIndex.size - 1;
-  const nodes: Record<string, number> = {};
-  for (let i = 0; i < externalCount; i++) nodes[sys.unknownNames[i]!] = x[i]!;
-  const sources: Record<string, number> = {};
-  const devices: Record<string, DeviceOp> = {};
-  const elements: Record<string, ElementOp> = {};
+  const shapes = (sys.resultShapes.value ??= resultShapes(sys, externalCount));
+  const names = sys.unknownNames;
+  const nodes = { ...shapes.nodes };
+  for (let i = 0; i < externalCount; i++) nodes[names[i]!] = x[i]!;
+  const sources = { ...shapes.sources };
+  const devices = { ...shapes.devices } as Record<string, DeviceOp>;
+  const elements = { ...shapes.elements } as Record<string, ElementOp>;
   if (kclScratch.length < sys.stride) kclScratch = new Float64Array(sys.stride);
   const kcl = kclScratch;
   kcl.fill(0, 0, sys.stride);
   let supplyPower = 0;
-  for (const ce of sys.elements) {
+  const compiled = sys.elements;
+  for (let k = 0; k < compiled.length; k++) {
+    const ce = compiled[k]!;
     const { el, terms } = ce;
     const p = terms[0]!;
     const m = terms[1]!;
@@ -87,8 +118,9 @@ export function buildOperatingPoint(
         terminals: { node: number; current: number }[];
       };
       devices[el.name] = rep.op;
-      for (const t of rep.terminals) kcl[t.node]! += t.current;
-      current = rep.terminals[0]!.current;
+      const terminals = rep.terminals;
+      for (let t = 0; t < terminals.length; t++) kcl[terminals[t]!.node]! += terminals[t]!.current;
+      current = terminals[0]!.current;
       power = rep.op.power;
     } else {
       switch (el.kind) {

@@ -88,10 +88,10 @@ export function optionError(error: z.ZodError): EngineError {
 let defaults: ResolvedOperatingPointOptions | undefined;
 
 export function resolveOperatingPointOptions(
-  options: OperatingPointOptions = {},
+  options?: OperatingPointOptions,
 ): ResolvedOperatingPointOptions {
   // Most solves use the defaults; skip the schema for them.
-  if (allUndefined(options)) return { ...(defaults ??= resolve({})) };
+  if (options === undefined || allUndefined(options)) return { ...(defaults ??= resolve({})) };
   return resolve(options);
 }
 

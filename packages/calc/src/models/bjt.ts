@@ -108,7 +108,7 @@ export function bjtAtTemperature(
   };
 }
 
-/** Gummel-Poon results at one bias: [cc, cb, gpi, gmu, gm, go, gx]. Reused scratch. */
+/** Gummel-Poon results at one bias: [cc, cb, gpi, gmu, gm, go, gx] (gx 0 unless RB is bias-dependent). Reused scratch. */
 const gp = new Float64Array(7);
 
 /** Evaluates the Gummel-Poon transport model (SPICE's equations) at normalized vbe, vbc. */
@@ -160,14 +160,20 @@ export function gummelPoon(
     dqbdvc = q1 * (qb * q.invVaf + (q.oikr * gbc) / sqarg);
   }
   const go = (gbc + ((cbe - cbc) * dqbdvc) / qb) / qb;
-  gp[0] = (cbe - cbc) / qb - cbc / q.br - cbcn;
-  gp[1] = cbe / q.bf + cben + cbc / q.br + cbcn;
+  const cbcBr = cbc / q.br;
+  gp[0] = (cbe - cbc) / qb - cbcBr - cbcn;
+  gp[1] = cbe / q.bf + cben + cbcBr + cbcn;
   gp[2] = gbe / q.bf + gben;
   gp[3] = gbc / q.br + gbcn;
   gp[4] = (gbe - ((cbe - cbc) * dqbdve) / qb) / qb - go;
   gp[5] = go;
-  const rbx = q.rbpr + q.rbpi / qb;
-  gp[6] = rbx > 0 ? 1 / rbx : 0;
+  // gx is read only when RB depends on the bias (RBM < RB); the division is skipped otherwise.
+  if (q.rbpi > 0) {
+    const rbx = q.rbpr + q.rbpi / qb;
+    gp[6] = rbx > 0 ? 1 / rbx : 0;
+  } else {
+    gp[6] = 0;
+  }
   return gp;
 }
 
