@@ -11,6 +11,7 @@ import { SignInPage } from '@/features/auth/components/sign-in-page.tsx';
 import { AcceptInvitationPage } from '@/features/invitations/components/accept-invitation-page.tsx';
 import { MembersPage } from '@/features/members/components/members-page.tsx';
 import { ProfilePage } from '@/features/profile/components/profile-page.tsx';
+import { projectRoutes } from '@/features/projects/project-routes.tsx';
 import { MyQueuePage } from '@/features/queue/components/my-queue-page.tsx';
 import { worksheetRoutes } from '@/features/worksheets/worksheet-routes.tsx';
 
@@ -35,6 +36,7 @@ export const routes: RouteObject[] = [
             children: [
               { index: true, element: <MyQueuePage /> },
               { path: 'members', element: <MembersPage /> },
+              ...projectRoutes,
               ...worksheetRoutes,
             ],
           },

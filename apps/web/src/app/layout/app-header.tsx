@@ -31,6 +31,12 @@ export function AppHeader() {
               <NavLink end to={orgPath(orgSlug)} className={sectionLink}>
                 My queue
               </NavLink>
+              <NavLink to={orgPath(orgSlug, 'projects')} className={sectionLink}>
+                Projects
+              </NavLink>
+              <NavLink to={orgPath(orgSlug, 'worksheets')} className={sectionLink}>
+                Worksheets
+              </NavLink>
               <NavLink to={orgPath(orgSlug, 'members')} className={sectionLink}>
                 Members
               </NavLink>

@@ -1,5 +1,10 @@
-import { isGround, type WorksheetDraft } from '@biasproof/calc';
-import { useCallback, useMemo, useState, type ReactNode } from 'react';
+import {
+  isGround,
+  type DeviceModel,
+  type WorksheetDraft,
+  type WorksheetResults,
+} from '@biasproof/calc';
+import { useCallback, useEffect, useMemo, useState, type ReactNode } from 'react';
 import { Card } from '@/components/ui/card.tsx';
 import {
   CircuitEditor,
@@ -9,10 +14,14 @@ import { DeckTools } from '@/features/worksheets/components/editor/deck-tools.ts
 import { HistoryBar } from '@/features/worksheets/components/editor/history-bar.tsx';
 import { ModelsSection } from '@/features/worksheets/components/editor/models-section.tsx';
 import { SettingsPanel } from '@/features/worksheets/components/editor/settings-panel.tsx';
-import { ResultsPanel } from '@/features/worksheets/components/results/results-panel.tsx';
+import {
+  ResultsPanel,
+  type StoredFrom,
+} from '@/features/worksheets/components/results/results-panel.tsx';
+import { draftKey } from '@/features/worksheets/draft/draft-key.ts';
 import { applyEdit } from '@/features/worksheets/draft/draft-edits.ts';
 import { useDraftHistory } from '@/features/worksheets/hooks/use-draft-history.ts';
-import { useLiveResults } from '@/features/worksheets/hooks/use-live-results.ts';
+import { useLiveResults, type LiveResults } from '@/features/worksheets/hooks/use-live-results.ts';
 
 function Panel({ title, children }: { title: string; children: ReactNode }) {
   const id = `ws-${title.toLowerCase().replace(/[^a-z]+/g, '-')}`;
@@ -39,24 +48,54 @@ function focusElementRow(name: string) {
   document.querySelector<HTMLElement>(`[data-element="${name.toLowerCase()}"] button`)?.focus();
 }
 
+/** Results the server computed and stored for one draft (the saved revision). */
+export interface StoredResults {
+  /** draftKey() of the draft they belong to. */
+  key: string;
+  results: WorksheetResults;
+  from: StoredFrom;
+}
+
+const ignoreEdit = () => undefined;
+
 /**
  * The author's worksheet: circuit editor and settings on one side, results computed as they type
  * on the other. Runs on the engine in the browser; `initialDraft` is where the session starts.
+ * While the draft is the one `stored` belongs to, the results shown are the stored ones.
  */
 export function WorksheetWorkspace({
   initialDraft,
   heading,
+  readOnly = false,
+  stored,
+  onDraftChange,
+  library,
 }: {
   initialDraft: () => WorksheetDraft;
   /** The page's heading, given the current draft. */
   heading: (draft: WorksheetDraft) => ReactNode;
+  /** Shown only: no editing, no undo, no import (export stays). */
+  readOnly?: boolean;
+  stored?: StoredResults | undefined;
+  /** Told after every change of the draft (not of an element still being typed). */
+  onDraftChange?: (draft: WorksheetDraft) => void;
+  /** The organization's model library, offered in the models panel. */
+  library?: readonly DeviceModel[] | undefined;
 }) {
   const history = useDraftHistory(initialDraft);
-  const { draft, edit } = history;
+  const draft = history.draft;
+  const edit = readOnly ? ignoreEdit : history.edit;
   const [pending, setPending] = useState<PendingElement | null>(null);
   const preview = useMemo(() => withPending(draft, pending), [draft, pending]);
-  const live = useLiveResults(preview);
+  const computed = useLiveResults(preview);
   const onPending = useCallback((p: PendingElement | null) => setPending(p), []);
+  useEffect(() => onDraftChange?.(draft), [draft, onDraftChange]);
+
+  const key = useMemo(() => (stored ? draftKey(draft) : null), [draft, stored]);
+  const showStored = stored !== undefined && pending === null && key === stored.key;
+  const live: LiveResults = showStored
+    ? { result: stored.results, computedDraft: draft, elapsedMs: null, computing: false }
+    : computed;
 
   const flagged = useMemo(() => {
     const names = new Set<string>();
@@ -82,7 +121,7 @@ export function WorksheetWorkspace({
     <div className="mx-auto flex w-full max-w-[96rem] flex-col gap-6">
       <div className="flex flex-wrap items-end justify-between gap-4">
         {heading(draft)}
-        <HistoryBar history={history} />
+        {readOnly ? null : <HistoryBar history={history} />}
       </div>
       <div className="grid items-start gap-6 xl:grid-cols-[minmax(0,5fr)_minmax(0,6fr)]">
         <div className="flex min-w-0 flex-col gap-6">
@@ -92,23 +131,32 @@ export function WorksheetWorkspace({
               edit={edit}
               flagged={flagged}
               onPending={onPending}
+              readOnly={readOnly}
             />
           </Panel>
           <Panel title="Models">
-            <ModelsSection circuit={draft.circuit} edit={edit} />
+            <ModelsSection
+              circuit={draft.circuit}
+              edit={edit}
+              readOnly={readOnly}
+              library={library}
+            />
           </Panel>
           <Panel title="Analysis settings">
-            <SettingsPanel circuit={draft.circuit} settings={draft.settings} edit={edit} />
+            <fieldset disabled={readOnly} className="min-w-0">
+              <SettingsPanel circuit={draft.circuit} settings={draft.settings} edit={edit} />
+            </fieldset>
           </Panel>
           <Panel title="SPICE deck">
-            <DeckTools draft={draft} edit={edit} />
+            <DeckTools draft={draft} edit={edit} readOnly={readOnly} />
           </Panel>
         </div>
         <div className="min-w-0 xl:sticky xl:top-4">
           <Panel title="Results">
             <ResultsPanel
               live={live}
-              origin="local-preview"
+              origin={showStored ? 'stored' : 'local-preview'}
+              storedFrom={showStored ? stored.from : undefined}
               pendingNote={pendingNote}
               onGoToElement={focusElementRow}
             />

@@ -31,10 +31,18 @@ interface CircuitEditorProps {
   /** Lowercase names of elements the engine's error is about. */
   flagged: ReadonlySet<string>;
   onPending: (pending: PendingElement | null) => void;
+  /** Shown only: no title editing, no forms, no buttons. */
+  readOnly?: boolean;
 }
 
 /** The block's title, its elements (table + typed form) and the way to add more. */
-export function CircuitEditor({ circuit, edit, flagged, onPending }: CircuitEditorProps) {
+export function CircuitEditor({
+  circuit,
+  edit,
+  flagged,
+  onPending,
+  readOnly = false,
+}: CircuitEditorProps) {
   const id = useId();
   const nodeListId = `${id}-nodes`;
   const [requested, setRequested] = useState<OpenForm>(null);
@@ -98,6 +106,7 @@ export function CircuitEditor({ circuit, edit, flagged, onPending }: CircuitEdit
         label="Block title"
         value={circuit.title}
         maxLength={200}
+        readOnly={readOnly}
         onChange={(e) => edit({ type: 'set-title', title: e.currentTarget.value }, 'title')}
       />
       <datalist id={nodeListId}>
@@ -109,13 +118,16 @@ export function CircuitEditor({ circuit, edit, flagged, onPending }: CircuitEdit
 
       {elements.length === 0 ? (
         <p className="rounded-md border border-dashed border-ink-300 px-4 py-6 text-center text-sm text-ink-600">
-          The circuit is empty. Add a part below, or import a SPICE deck.
+          {readOnly
+            ? 'The circuit is empty.'
+            : 'The circuit is empty. Add a part below, or import a SPICE deck.'}
         </p>
       ) : (
         <ElementTable
           elements={elements}
           flagged={flagged}
           editing={editingIndex}
+          readOnly={readOnly}
           onEdit={(index) => setRequested({ mode: 'edit', index })}
           onDuplicate={(index) => edit({ type: 'duplicate-element', index })}
           onDelete={(index) => {
@@ -125,7 +137,7 @@ export function CircuitEditor({ circuit, edit, flagged, onPending }: CircuitEdit
         />
       )}
 
-      {open && context && initial ? (
+      {open && context && initial && !readOnly ? (
         <ElementForm
           key={open.mode === 'edit' ? `edit-${open.index}` : `add-${open.kind}`}
           title={formTitle}
@@ -143,46 +155,48 @@ export function CircuitEditor({ circuit, edit, flagged, onPending }: CircuitEdit
         />
       ) : null}
 
-      <div className="flex flex-wrap items-end gap-2">
-        <div className="flex flex-col gap-1">
-          <label htmlFor={`${id}-kind`} className="text-sm font-semibold text-ink-700">
-            Kind of part
-          </label>
-          <select
-            id={`${id}-kind`}
-            value={newKind}
-            onChange={(e) => setNewKind(e.currentTarget.value as ElementKind)}
-            className="rounded-md border border-ink-500 bg-surface px-3 py-2 text-ink-900"
-          >
-            {elementKinds.map((k) => (
-              <option key={k} value={k}>
-                {kindSpecs[k].label} ({k})
-              </option>
-            ))}
-          </select>
-        </div>
-        <Button
-          ref={addButton}
-          variant="outline"
-          onClick={() => {
-            onPending(null);
-            setRequested({ mode: 'add', kind: newKind });
-          }}
-        >
-          Add part
-        </Button>
-        {elements.length > 0 ? (
+      {readOnly ? null : (
+        <div className="flex flex-wrap items-end gap-2">
+          <div className="flex flex-col gap-1">
+            <label htmlFor={`${id}-kind`} className="text-sm font-semibold text-ink-700">
+              Kind of part
+            </label>
+            <select
+              id={`${id}-kind`}
+              value={newKind}
+              onChange={(e) => setNewKind(e.currentTarget.value as ElementKind)}
+              className="rounded-md border border-ink-500 bg-surface px-3 py-2 text-ink-900"
+            >
+              {elementKinds.map((k) => (
+                <option key={k} value={k}>
+                  {kindSpecs[k].label} ({k})
+                </option>
+              ))}
+            </select>
+          </div>
           <Button
-            variant="quiet"
+            ref={addButton}
+            variant="outline"
             onClick={() => {
-              close();
-              edit({ type: 'clear' });
+              onPending(null);
+              setRequested({ mode: 'add', kind: newKind });
             }}
           >
-            Clear circuit
+            Add part
           </Button>
-        ) : null}
-      </div>
+          {elements.length > 0 ? (
+            <Button
+              variant="quiet"
+              onClick={() => {
+                close();
+                edit({ type: 'clear' });
+              }}
+            >
+              Clear circuit
+            </Button>
+          ) : null}
+        </div>
+      )}
     </div>
   );
 }

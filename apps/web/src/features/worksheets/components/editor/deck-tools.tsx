@@ -30,9 +30,12 @@ function deckFileName(title: string): string {
 export function DeckTools({
   draft,
   edit,
+  readOnly = false,
 }: {
   draft: WorksheetDraft;
   edit: (e: DraftEdit) => void;
+  /** Export only: the worksheet cannot be changed. */
+  readOnly?: boolean;
 }) {
   const id = useId();
   const [report, setReport] = useState<Report | null>(null);
@@ -102,25 +105,27 @@ export function DeckTools({
   return (
     <div className="flex flex-col gap-3">
       <div className="flex flex-wrap items-end gap-4">
-        <div className="flex flex-col gap-1">
-          <label htmlFor={`${id}-file`} className="text-sm font-semibold text-ink-700">
-            Import a SPICE deck (.cir, .sp, .net)
-          </label>
-          <input
-            id={`${id}-file`}
-            type="file"
-            accept=".cir,.sp,.net,.spice,text/plain"
-            onChange={(e) => void onFile(e)}
-            className="text-sm text-ink-700 file:mr-3 file:rounded-md file:border file:border-ink-500 file:bg-surface file:px-3 file:py-1.5 file:font-semibold file:text-ink-900 hover:file:bg-paper focus-visible:outline-2 focus-visible:outline-accent"
-          />
-        </div>
+        {readOnly ? null : (
+          <div className="flex flex-col gap-1">
+            <label htmlFor={`${id}-file`} className="text-sm font-semibold text-ink-700">
+              Import a SPICE deck (.cir, .sp, .net)
+            </label>
+            <input
+              id={`${id}-file`}
+              type="file"
+              accept=".cir,.sp,.net,.spice,text/plain"
+              onChange={(e) => void onFile(e)}
+              className="text-sm text-ink-700 file:mr-3 file:rounded-md file:border file:border-ink-500 file:bg-surface file:px-3 file:py-1.5 file:font-semibold file:text-ink-900 hover:file:bg-paper focus-visible:outline-2 focus-visible:outline-accent"
+            />
+          </div>
+        )}
         <Button variant="outline" onClick={download} disabled={draft.circuit.elements.length === 0}>
           Export deck
         </Button>
       </div>
       <p className="text-xs text-ink-600">
-        Importing replaces the circuit (Undo brings it back). The exported deck holds .op and the
-        sweep as .ac, and runs in SPICE-class simulators.
+        {readOnly ? '' : 'Importing replaces the circuit (Undo brings it back). '}The exported deck
+        holds .op and the sweep as .ac, and runs in SPICE-class simulators.
       </p>
       {exportError ? <ErrorMessage>{exportError}</ErrorMessage> : null}
       {report?.tone === 'error' ? (

@@ -13,6 +13,8 @@ interface ElementTableProps {
   onEdit: (index: number) => void;
   onDuplicate: (index: number) => void;
   onDelete: (index: number) => void;
+  /** No action buttons: the worksheet cannot be changed. */
+  readOnly?: boolean;
 }
 
 const head = 'px-2 py-2 text-left text-xs font-semibold uppercase tracking-wide text-ink-600';
@@ -25,6 +27,7 @@ export function ElementTable({
   onEdit,
   onDuplicate,
   onDelete,
+  readOnly = false,
 }: ElementTableProps) {
   return (
     <div className="overflow-x-auto">
@@ -44,9 +47,11 @@ export function ElementTable({
             <th scope="col" className={head}>
               Value or model
             </th>
-            <th scope="col" className={head}>
-              <span className="sr-only">Actions</span>
-            </th>
+            {readOnly ? null : (
+              <th scope="col" className={head}>
+                <span className="sr-only">Actions</span>
+              </th>
+            )}
           </tr>
         </thead>
         <tbody>
@@ -79,32 +84,34 @@ export function ElementTable({
                   ))}
                 </td>
                 <td className={`${cell} tabular-nums text-ink-900`}>{elementSummary(el)}</td>
-                <td className={`${cell} whitespace-nowrap text-right`}>
-                  <Button
-                    size="sm"
-                    variant="quiet"
-                    aria-label={`Edit ${el.name}`}
-                    onClick={() => onEdit(index)}
-                  >
-                    Edit
-                  </Button>
-                  <Button
-                    size="sm"
-                    variant="quiet"
-                    aria-label={`Duplicate ${el.name}`}
-                    onClick={() => onDuplicate(index)}
-                  >
-                    Duplicate
-                  </Button>
-                  <Button
-                    size="sm"
-                    variant="quiet"
-                    aria-label={`Delete ${el.name}`}
-                    onClick={() => onDelete(index)}
-                  >
-                    Delete
-                  </Button>
-                </td>
+                {readOnly ? null : (
+                  <td className={`${cell} whitespace-nowrap text-right`}>
+                    <Button
+                      size="sm"
+                      variant="quiet"
+                      aria-label={`Edit ${el.name}`}
+                      onClick={() => onEdit(index)}
+                    >
+                      Edit
+                    </Button>
+                    <Button
+                      size="sm"
+                      variant="quiet"
+                      aria-label={`Duplicate ${el.name}`}
+                      onClick={() => onDuplicate(index)}
+                    >
+                      Duplicate
+                    </Button>
+                    <Button
+                      size="sm"
+                      variant="quiet"
+                      aria-label={`Delete ${el.name}`}
+                      onClick={() => onDelete(index)}
+                    >
+                      Delete
+                    </Button>
+                  </td>
+                )}
               </tr>
             );
           })}

@@ -1,5 +1,5 @@
 import { formatSpiceNumber, type DeviceModel, type DraftCircuit } from '@biasproof/calc';
-import { useState } from 'react';
+import { useId, useState } from 'react';
 import { Button } from '@/components/ui/button.tsx';
 import { ErrorMessage } from '@/components/ui/message.tsx';
 import { ModelForm } from '@/features/worksheets/components/editor/model-form.tsx';
@@ -16,13 +16,68 @@ type Open = { mode: 'new' } | { mode: 'edit'; index: number } | null;
 const head = 'px-2 py-2 text-left text-xs font-semibold uppercase tracking-wide text-ink-600';
 const cell = 'px-2 py-2 align-top text-sm';
 
+/** Models of the organization's library that the circuit does not hold yet, to copy in. */
+function LibraryPicker({
+  circuit,
+  library,
+  edit,
+}: {
+  circuit: DraftCircuit;
+  library: readonly DeviceModel[];
+  edit: (e: DraftEdit) => void;
+}) {
+  const id = useId();
+  const offered = library.filter(
+    (m) => !circuit.models.some((c) => c.name.toLowerCase() === m.name.toLowerCase()),
+  );
+  const [chosen, setChosen] = useState('');
+  const model = offered.find((m) => m.name === chosen) ?? offered[0];
+  if (!model) return null;
+  return (
+    <div className="flex flex-wrap items-end gap-2">
+      <div className="flex flex-col gap-1">
+        <label htmlFor={`${id}-library`} className="text-sm font-semibold text-ink-700">
+          From the model library
+        </label>
+        <select
+          id={`${id}-library`}
+          value={model.name}
+          onChange={(e) => setChosen(e.currentTarget.value)}
+          className="rounded-md border border-ink-500 bg-surface px-3 py-1.5 text-sm text-ink-900"
+        >
+          {offered.map((m) => (
+            <option key={m.name} value={m.name}>
+              {m.name} ({modelKindLabels[m.kind]})
+            </option>
+          ))}
+        </select>
+      </div>
+      <Button
+        size="sm"
+        variant="outline"
+        onClick={() =>
+          edit({ type: 'add-model', model: { ...model, params: { ...model.params } } })
+        }
+      >
+        Use this model
+      </Button>
+    </div>
+  );
+}
+
 /** The device models of this circuit: list, new, edit, delete (while no element uses it). */
 export function ModelsSection({
   circuit,
   edit,
+  readOnly = false,
+  library = [],
 }: {
   circuit: DraftCircuit;
   edit: (e: DraftEdit) => void;
+  /** Shown only: no buttons. */
+  readOnly?: boolean;
+  /** The organization's model library, offered for copying into the circuit. */
+  library?: readonly DeviceModel[];
 }) {
   const [requested, setOpen] = useState<Open>(null);
   // An undo may take away the model being edited: then the form closes.
@@ -67,9 +122,11 @@ export function ModelsSection({
                 <th scope="col" className={head}>
                   Used by
                 </th>
-                <th scope="col" className={head}>
-                  <span className="sr-only">Actions</span>
-                </th>
+                {readOnly ? null : (
+                  <th scope="col" className={head}>
+                    <span className="sr-only">Actions</span>
+                  </th>
+                )}
               </tr>
             </thead>
             <tbody>
@@ -89,35 +146,38 @@ export function ModelsSection({
                       .map((u) => u.name)
                       .join(', ') || '—'}
                   </td>
-                  <td className={`${cell} whitespace-nowrap text-right`}>
-                    <Button
-                      size="sm"
-                      variant="quiet"
-                      aria-label={`Edit model ${model.name}`}
-                      onClick={() => setOpen({ mode: 'edit', index })}
-                    >
-                      Edit
-                    </Button>
-                    <Button
-                      size="sm"
-                      variant="quiet"
-                      aria-label={`Delete model ${model.name}`}
-                      onClick={() => remove(index, model)}
-                    >
-                      Delete
-                    </Button>
-                  </td>
+                  {readOnly ? null : (
+                    <td className={`${cell} whitespace-nowrap text-right`}>
+                      <Button
+                        size="sm"
+                        variant="quiet"
+                        aria-label={`Edit model ${model.name}`}
+                        onClick={() => setOpen({ mode: 'edit', index })}
+                      >
+                        Edit
+                      </Button>
+                      <Button
+                        size="sm"
+                        variant="quiet"
+                        aria-label={`Delete model ${model.name}`}
+                        onClick={() => remove(index, model)}
+                      >
+                        Delete
+                      </Button>
+                    </td>
+                  )}
                 </tr>
               ))}
             </tbody>
           </table>
         </div>
       )}
-      {open === null ? (
-        <div>
+      {readOnly ? null : open === null ? (
+        <div className="flex flex-wrap items-end justify-between gap-4">
           <Button size="sm" variant="outline" onClick={() => setOpen({ mode: 'new' })}>
             New model
           </Button>
+          <LibraryPicker circuit={circuit} library={library} edit={edit} />
         </div>
       ) : open.mode === 'new' ? (
         <ModelForm

@@ -15,7 +15,16 @@ interface ResultsPanelProps {
   origin: 'local-preview' | 'stored';
   /** Shown when the preview includes an element being typed but not saved. */
   pendingNote?: string | null;
+  /** For stored results: the revision they belong to. */
+  storedFrom?: StoredFrom | undefined;
   onGoToElement: (name: string) => void;
+}
+
+/** The revision stored results were computed for. */
+export interface StoredFrom {
+  letter: string;
+  engineVersion: string;
+  contentHash: string;
 }
 
 const views = [
@@ -29,7 +38,8 @@ function OriginLine({
   live,
   origin,
   pendingNote,
-}: Pick<ResultsPanelProps, 'live' | 'origin' | 'pendingNote'>) {
+  storedFrom,
+}: Pick<ResultsPanelProps, 'live' | 'origin' | 'pendingNote' | 'storedFrom'>) {
   const elapsed = live.result && live.result.status !== 'empty' ? live.elapsedMs : null;
   return (
     <div className="flex flex-wrap items-center gap-x-3 gap-y-1 text-sm">
@@ -43,6 +53,15 @@ function OriginLine({
           ? 'Computed by the server and stored with the revision.'
           : 'Computed in this browser from the draft; not stored.'}
       </span>
+      {origin === 'stored' && storedFrom ? (
+        <span className="text-ink-700" data-testid="stored-from">
+          Revision <strong className="font-semibold">{storedFrom.letter}</strong> · engine{' '}
+          {storedFrom.engineVersion} ·{' '}
+          <span title={`SHA-256 ${storedFrom.contentHash}`}>
+            hash <code className="font-mono text-xs">{storedFrom.contentHash.slice(0, 12)}</code>
+          </span>
+        </span>
+      ) : null}
       <span role="status" className="text-ink-600">
         {live.computing
           ? 'Updating…'
@@ -57,7 +76,13 @@ function OriginLine({
   );
 }
 
-export function ResultsPanel({ live, origin, pendingNote, onGoToElement }: ResultsPanelProps) {
+export function ResultsPanel({
+  live,
+  origin,
+  pendingNote,
+  storedFrom,
+  onGoToElement,
+}: ResultsPanelProps) {
   const [view, setView] = useState<string>('bias');
   const { result, computedDraft } = live;
   const circuit = computedDraft?.circuit;
@@ -114,7 +139,7 @@ export function ResultsPanel({ live, origin, pendingNote, onGoToElement }: Resul
 
   return (
     <div className="flex flex-col gap-4">
-      <OriginLine live={live} origin={origin} pendingNote={pendingNote} />
+      <OriginLine live={live} origin={origin} pendingNote={pendingNote} storedFrom={storedFrom} />
       <div aria-busy={live.computing}>{body}</div>
       <p className="border-t border-rule pt-3 text-xs text-ink-600">
         <strong className="font-semibold text-ink-700">Caution:</strong> these results are
