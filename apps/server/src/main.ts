@@ -8,6 +8,7 @@ import { migrateToLatest } from './db/migrator.ts';
 import { createMailTransport } from './mail/mail-transport.ts';
 import { createMailer } from './mail/send-mail.ts';
 import { createApp } from './app.ts';
+import { startOutboxDispatcher } from './outbox/dispatcher.ts';
 
 function readConfig() {
   try {
@@ -35,6 +36,9 @@ const server: Server = app.listen(config.port, config.host, () => {
   logger.info({ url: `http://${config.host}:${config.port}` }, 'Biasproof server listening');
 });
 
+// E-mails written by changes (the outbox) are sent from this process, retried while SMTP is down.
+const outbox = startOutboxDispatcher(sequelize, mailer, logger);
+
 let stopping = false;
 async function shutdown(signal: string): Promise<void> {
   if (stopping) return;
@@ -43,6 +47,7 @@ async function shutdown(signal: string): Promise<void> {
   const forced = setTimeout(() => process.exit(1), 10_000).unref();
   server.close();
   server.closeIdleConnections();
+  await outbox.stop().catch(() => undefined);
   await sequelize.close().catch(() => undefined);
   transport.close();
   clearTimeout(forced);

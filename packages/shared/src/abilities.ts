@@ -24,7 +24,9 @@ export type Action =
   | 'check'
   | 'sign'
   | 'assign'
-  | 'export';
+  | 'export'
+  | 'answer'
+  | 'close';
 
 export interface MemberSubject {
   userId: string;
@@ -36,6 +38,10 @@ export interface RevisionSubject {
 }
 export interface WorksheetSubject {
   authorId: string;
+}
+export interface FindingSubject {
+  /** The author of the worksheet the finding is about. */
+  worksheetAuthorId: string;
 }
 
 export type SubjectName =
@@ -54,7 +60,8 @@ type Subjects =
   | SubjectName
   | (MemberSubject & ForcedSubject<'Member'>)
   | (RevisionSubject & ForcedSubject<'Revision'>)
-  | (WorksheetSubject & ForcedSubject<'Worksheet'>);
+  | (WorksheetSubject & ForcedSubject<'Worksheet'>)
+  | (FindingSubject & ForcedSubject<'Finding'>);
 
 export type AppAbility = MongoAbility<[Action, Subjects]>;
 
@@ -104,9 +111,14 @@ export function defineAbilityFor({ userId, roles }: AbilityInput): AppAbility {
     can('manage', 'ModelLibrary');
     can('update', 'Finding'); // answering findings on their own worksheets is checked per object
   }
+  if (has('author')) {
+    can('answer', 'Finding', { worksheetAuthorId: userId });
+  }
   if (has('checker')) {
     can('check', 'Revision');
-    can(['create', 'update'], 'Finding');
+    can(['create', 'update', 'close'], 'Finding');
+    // Separation of duties: nobody raises or closes findings on a worksheet they authored.
+    cannot(['create', 'close'], 'Finding', { worksheetAuthorId: userId });
   }
   if (has('approver')) {
     can('sign', 'Revision');

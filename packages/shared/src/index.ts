@@ -12,3 +12,5 @@ export * from './api/canonical-json.ts';
 export * from './api/projects.ts';
 export * from './api/worksheets.ts';
 export * from './api/model-library.ts';
+export * from './workflow.ts';
+export * from './api/review.ts';

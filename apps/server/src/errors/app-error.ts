@@ -29,6 +29,11 @@ const statusByCode = {
   'reset-token-invalid': 400,
   'reset-token-expired': 400,
   'reset-token-used': 400,
+  // Review and sign-off (workflow.ts BlockCode, and a wrong password when signing).
+  'invalid-transition': 409,
+  'open-findings': 409,
+  'assignment-missing': 409,
+  'bad-password': 403,
 } as const;
 
 export type AppErrorCode = keyof typeof statusByCode;

@@ -7,6 +7,7 @@ import { auditRoutes } from '../audit/routes.ts';
 import { projectRoutes } from '../projects/routes.ts';
 import { worksheetRoutes } from '../worksheets/routes.ts';
 import { modelLibraryRoutes } from '../models/routes.ts';
+import { findingRoutes, worksheetReviewRoutes } from '../review/routes.ts';
 import { authorize, orgContextOf, orgScope } from './org-scope.ts';
 import { getOrganization } from './organizations.ts';
 
@@ -24,7 +25,8 @@ export function orgRoutes(svc: Services): Router {
   router.use('/invitations', invitationAdminRoutes(svc));
   router.use('/audit', auditRoutes());
   router.use('/projects', projectRoutes());
-  router.use('/worksheets', worksheetRoutes());
+  router.use('/worksheets', worksheetReviewRoutes(svc), worksheetRoutes());
+  router.use('/findings', findingRoutes());
   router.use('/models', modelLibraryRoutes());
   return router;
 }

@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import request from 'supertest';
 import { QueryTypes } from 'sequelize';
-import type { Role } from '@biasproof/shared';
+import type { Role, WorksheetState } from '@biasproof/shared';
 import { analysisSettingsSchema, type WorksheetDraft } from '@biasproof/calc';
 import { computeRevision } from '../calc/compute.ts';
 import { inTransaction } from '../db/transactions.ts';
@@ -152,6 +152,11 @@ export async function insertWorksheetRow(
     projectId: string;
     authorId: string;
     checkerId?: string | null;
+    approverId?: string | null;
+    checkedById?: string | null;
+    state?: WorksheetState;
+    /** Freeze revision A, as a submission does. */
+    frozen?: boolean;
     title?: string;
     engineVersion?: string;
   },
@@ -164,6 +169,9 @@ export async function insertWorksheetRow(
         title: w.title ?? 'Fixture divider',
         authorUserId: w.authorId,
         checkerUserId: w.checkerId ?? null,
+        approverUserId: w.approverId ?? null,
+        checkedByUserId: w.checkedById ?? null,
+        state: w.state ?? 'draft',
       },
       { transaction: tx.transaction },
     );
@@ -176,6 +184,7 @@ export async function insertWorksheetRow(
         worksheetId: row.id,
         letter: 'A',
         createdByUserId: w.authorId,
+        frozen: w.frozen ?? false,
       },
       { transaction: tx.transaction },
     );
@@ -197,4 +206,32 @@ export async function insertModelRow(
     );
     return row.id;
   });
+}
+
+/** A finding inserted directly (no API, no audit event). */
+export async function insertFindingRow(
+  t: TestApp,
+  f: {
+    orgId: string;
+    worksheetId: string;
+    createdById: string;
+    severity?: 'note' | 'minor' | 'major';
+    status?: 'open' | 'answered' | 'closed';
+    path?: string;
+  },
+): Promise<string> {
+  const [row] = await systemRows<{ id: string }>(
+    t,
+    `INSERT INTO findings (org_id, worksheet_id, revision_letter, path, severity, text, status, created_by_user_id)
+     VALUES ($1, $2, 'A', $3, $4, 'Fixture finding', $5, $6) RETURNING id`,
+    [
+      f.orgId,
+      f.worksheetId,
+      f.path ?? 'nodes.out',
+      f.severity ?? 'minor',
+      f.status ?? 'open',
+      f.createdById,
+    ],
+  );
+  return row!.id;
 }

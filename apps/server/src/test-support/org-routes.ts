@@ -8,10 +8,12 @@ import { inTransaction } from '../db/transactions.ts';
 import { newLinkToken } from '../auth/tokens.ts';
 import {
   createOrgWithMembers,
+  insertFindingRow,
   insertModelRow,
   insertProjectRow,
   insertWorksheetRow,
   systemRows,
+  TEST_PASSWORD,
   unique,
   uniqueEmail,
   type OrgFixture,
@@ -25,13 +27,28 @@ import type { TestApp } from './test-app.ts';
  */
 export interface OrgWorld extends OrgFixture {
   actorId: string;
+  /** The admin who stays; the checker who accepted the checked worksheet. */
+  keeperId: string;
   targetUserId: string;
   invitationId: string;
   projectId: string;
-  /** Authored by the actor; its results carry an older engine version, so a recompute changes them. */
+  /**
+   * Authored by the actor, with a checker and an approver assigned (so it may be submitted);
+   * its results carry an older engine version, so a recompute changes them.
+   */
   worksheetId: string;
   /** Authored by the target member; the keeper is assigned as its checker. */
   assignedWorksheetId: string;
+  /** Authored by the target member, in check (revision A frozen), the actor its assigned checker. */
+  inCheckWorksheetId: string;
+  /** Authored by the target member, checked by the keeper, the actor its assigned approver. */
+  checkedWorksheetId: string;
+  /** An open minor finding on the actor's worksheet (for the author to answer). */
+  findingId: string;
+  /** An open minor finding on the worksheet in check (for a checker to close). */
+  reviewFindingId: string;
+  /** A closed finding on the worksheet in check (for a checker to reopen). */
+  closedFindingId: string;
   modelId: string;
 }
 
@@ -40,6 +57,8 @@ export async function createOrgWorld(t: TestApp, actorRoles: Role[]): Promise<Or
     actor: actorRoles,
     keeper: ['admin'],
     target: ['author'],
+    checker: ['checker'],
+    approver: ['approver'],
   });
   const invitationId = await createPendingInvitation(
     t,
@@ -57,6 +76,8 @@ export async function createOrgWorld(t: TestApp, actorRoles: Role[]): Promise<Or
     orgId: fx.org.id,
     projectId,
     authorId: actorId,
+    checkerId: fx.people.checker!.id,
+    approverId: fx.people.approver!.id,
     engineVersion: '0.0.0-fixture',
   });
   const assignedWorksheetId = await insertWorksheetRow(t, {
@@ -65,15 +86,45 @@ export async function createOrgWorld(t: TestApp, actorRoles: Role[]): Promise<Or
     authorId: targetUserId,
     checkerId: keeperId,
   });
+  const inCheckWorksheetId = await insertWorksheetRow(t, {
+    orgId: fx.org.id,
+    projectId,
+    authorId: targetUserId,
+    checkerId: actorId,
+    approverId: fx.people.approver!.id,
+    state: 'in_check',
+    frozen: true,
+  });
+  const checkedWorksheetId = await insertWorksheetRow(t, {
+    orgId: fx.org.id,
+    projectId,
+    authorId: targetUserId,
+    checkerId: keeperId,
+    checkedById: keeperId,
+    approverId: actorId,
+    state: 'checked',
+    frozen: true,
+  });
+  const finding = (worksheetId: string, status: 'open' | 'closed' = 'open') =>
+    insertFindingRow(t, { orgId: fx.org.id, worksheetId, createdById: keeperId, status });
+  const findingId = await finding(worksheetId);
+  const reviewFindingId = await finding(inCheckWorksheetId);
+  const closedFindingId = await finding(inCheckWorksheetId, 'closed');
   const modelId = await insertModelRow(t, fx.org.id, keeperId);
   return {
     ...fx,
     actorId,
+    keeperId,
     targetUserId,
     invitationId,
     projectId,
     worksheetId,
     assignedWorksheetId,
+    inCheckWorksheetId,
+    checkedWorksheetId,
+    findingId,
+    reviewFindingId,
+    closedFindingId,
     modelId,
   };
 }
@@ -87,6 +138,11 @@ export function malformedIds(w: OrgWorld): OrgWorld {
     projectId: 'not-a-uuid',
     worksheetId: "' OR 1=1 --",
     assignedWorksheetId: '00000000-0000-0000-0000',
+    inCheckWorksheetId: 'in-check',
+    checkedWorksheetId: '../checked',
+    findingId: 'finding%00',
+    reviewFindingId: '-1',
+    closedFindingId: 'null',
     modelId: 'model;1',
   };
 }
@@ -347,6 +403,109 @@ export const orgRoutes: OrgRouteCase[] = [
     namesObject: true,
   },
   {
+    name: 'GET /worksheets/:id/actions',
+    method: 'get',
+    action: 'read',
+    subject: 'Worksheet',
+    path: (w) => `/worksheets/${w.worksheetId}/actions`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'POST /worksheets/:id/transitions (submit)',
+    method: 'post',
+    action: 'submit',
+    subject: 'Worksheet',
+    objectFields: (w) => ({ authorId: w.actorId }),
+    path: (w) => `/worksheets/${w.worksheetId}/transitions`,
+    body: () => ({ action: 'submit', version: 1 }),
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'POST /worksheets/:id/transitions (accept)',
+    method: 'post',
+    action: 'check',
+    subject: 'Revision',
+    objectFields: (w) => ({ authorId: w.targetUserId, checkerId: w.actorId }),
+    path: (w) => `/worksheets/${w.inCheckWorksheetId}/transitions`,
+    body: () => ({ action: 'accept', version: 1 }),
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'POST /worksheets/:id/transitions (sign)',
+    method: 'post',
+    action: 'sign',
+    subject: 'Revision',
+    objectFields: (w) => ({ authorId: w.targetUserId, checkerId: w.keeperId }),
+    path: (w) => `/worksheets/${w.checkedWorksheetId}/transitions`,
+    body: () => ({ action: 'sign', version: 1, meaning: 'Reviewed', password: TEST_PASSWORD }),
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'GET /worksheets/:id/findings',
+    method: 'get',
+    action: 'read',
+    subject: 'Finding',
+    path: (w) => `/worksheets/${w.inCheckWorksheetId}/findings`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'POST /worksheets/:id/findings',
+    method: 'post',
+    action: 'create',
+    subject: 'Finding',
+    objectFields: (w) => ({ worksheetAuthorId: w.targetUserId }),
+    path: (w) => `/worksheets/${w.inCheckWorksheetId}/findings`,
+    body: () => ({ path: 'nodes.out', severity: 'minor', text: 'Raised by the matrix' }),
+    success: 201,
+    namesObject: true,
+  },
+  {
+    name: 'POST /findings/:findingId/answer',
+    method: 'post',
+    action: 'answer',
+    subject: 'Finding',
+    objectFields: (w) => ({ worksheetAuthorId: w.actorId }),
+    path: (w) => `/findings/${w.findingId}/answer`,
+    body: () => ({ text: 'Answered by the matrix' }),
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'POST /findings/:findingId/close',
+    method: 'post',
+    action: 'close',
+    subject: 'Finding',
+    objectFields: (w) => ({ worksheetAuthorId: w.targetUserId }),
+    path: (w) => `/findings/${w.reviewFindingId}/close`,
+    body: () => ({ text: 'Closed by the matrix' }),
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'POST /findings/:findingId/reopen',
+    method: 'post',
+    action: 'close',
+    subject: 'Finding',
+    objectFields: (w) => ({ worksheetAuthorId: w.targetUserId }),
+    path: (w) => `/findings/${w.closedFindingId}/reopen`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'GET /worksheets/:id/signatures',
+    method: 'get',
+    action: 'read',
+    subject: 'Revision',
+    path: (w) => `/worksheets/${w.checkedWorksheetId}/signatures`,
+    success: 200,
+    namesObject: true,
+  },
+  {
     name: 'GET /models',
     method: 'get',
     action: 'read',
@@ -425,16 +584,27 @@ export async function orgSnapshot(t: TestApp, orgId: string) {
     ),
     worksheets: await systemRows(
       t,
-      `SELECT id, project_id, title, description, author_user_id, checker_user_id, approver_user_id, state,
-              current_revision, version, updated_at FROM worksheets WHERE org_id = $1 ORDER BY id`,
+      `SELECT id, project_id, title, description, author_user_id, checker_user_id, approver_user_id,
+              checked_by_user_id, state, current_revision, version, updated_at
+         FROM worksheets WHERE org_id = $1 ORDER BY id`,
       [orgId],
     ),
     revisions: await systemRows(
       t,
-      `SELECT worksheet_id, letter, content_hash, engine_version, frozen, updated_at
+      `SELECT worksheet_id, letter, content_hash, engine_version, frozen, results, updated_at
          FROM revisions WHERE org_id = $1 ORDER BY worksheet_id, letter`,
       [orgId],
     ),
+    findings: await systemRows(
+      t,
+      `SELECT id, worksheet_id, revision_letter, path, severity, text, status, updated_at,
+              (SELECT count(*) FROM finding_replies r WHERE r.finding_id = f.id) AS replies
+         FROM findings f WHERE org_id = $1 ORDER BY id`,
+      [orgId],
+    ),
+    signatures: await systemRows(t, 'SELECT * FROM signatures WHERE org_id = $1 ORDER BY id', [
+      orgId,
+    ]),
     models: await systemRows(
       t,
       'SELECT id, name, kind, params, ratings, notes, updated_at FROM model_library_entries WHERE org_id = $1 ORDER BY id',

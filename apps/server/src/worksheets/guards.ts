@@ -3,7 +3,7 @@ import { AppError } from '../errors/app-error.ts';
 import type { OrgContext, OrgTx } from '../orgs/org-scope.ts';
 import type { WorksheetRow } from '../db/models/worksheet.ts';
 import type { RevisionRow } from '../db/models/revision.ts';
-import { findCurrentRevisionForUpdate, findWorksheet } from './repository.ts';
+import { findCurrentRevisionForUpdate, findWorksheet, insertRevision } from './repository.ts';
 import { noSuchWorksheet } from './worksheets.ts';
 
 // The checks every change to a worksheet passes, in this order: it exists in the
@@ -47,10 +47,25 @@ export function assertVersion(worksheet: WorksheetRow, version: number | undefin
   );
 }
 
-/** The current revision, locked, when the author may still change it: draft or returned, not frozen. */
+/** The letter after `letter`: A → B, Z → AA, AZ → BA. */
+export function nextRevisionLetter(letter: string): string {
+  const digits = [...letter].map((c) => c.charCodeAt(0) - 64);
+  let i = digits.length - 1;
+  while (i >= 0 && digits[i] === 26) digits[i--] = 1;
+  if (i < 0) digits.unshift(1);
+  else digits[i] = (digits[i] ?? 0) + 1;
+  return digits.map((d) => String.fromCharCode(64 + d)).join('');
+}
+
+/**
+ * The current revision, locked, when the author may still change it: draft or returned, not
+ * frozen. With `startNextBy`, a returned worksheet whose revision was frozen at submission
+ * gets the next revision (B, C…): an unfrozen copy, made current, created by that person.
+ */
 export async function lockEditableRevision(
   tx: OrgTx,
   worksheet: WorksheetRow,
+  options: { startNextBy?: string } = {},
 ): Promise<RevisionRow> {
   if (!editableWorksheetStates.includes(worksheet.state)) {
     throw new AppError(
@@ -60,8 +75,33 @@ export async function lockEditableRevision(
   }
   const revision = await findCurrentRevisionForUpdate(tx, worksheet);
   if (!revision) throw noSuchWorksheet();
+  if (revision.frozen && worksheet.state === 'returned' && options.startNextBy) {
+    return startNextRevision(tx, worksheet, revision, options.startNextBy);
+  }
   if (revision.frozen) {
     throw new AppError('conflict', `Revision ${revision.letter} is frozen and cannot be changed.`);
   }
   return revision;
+}
+
+async function startNextRevision(
+  tx: OrgTx,
+  worksheet: WorksheetRow,
+  frozen: RevisionRow,
+  createdByUserId: string,
+): Promise<RevisionRow> {
+  const letter = nextRevisionLetter(frozen.letter);
+  const next = await insertRevision(tx, {
+    worksheetId: worksheet.id,
+    letter,
+    createdByUserId,
+    circuit: frozen.circuit,
+    settings: frozen.settings,
+    results: frozen.results,
+    resultStatus: frozen.resultStatus,
+    engineVersion: frozen.engineVersion,
+    contentHash: frozen.contentHash,
+  } as Parameters<typeof insertRevision>[1]);
+  await worksheet.update({ currentRevision: letter }, { transaction: tx.transaction });
+  return next;
 }

@@ -57,7 +57,12 @@ export async function updateWorksheet(
     if (edits) assertMayEdit(org, worksheet);
     if (assigns) assertMayAssign(org, worksheet);
     assertVersion(worksheet, input.version);
-    const revision = edits ? await lockEditableRevision(tx, worksheet) : null;
+    const startedFrom = worksheet.currentRevision;
+    const revision = edits
+      ? await lockEditableRevision(tx, worksheet, { startNextBy: org.actor.userId })
+      : null;
+    // A returned worksheet's first edit starts the next revision: a change even if nothing else is.
+    const started = revision !== null && revision.letter !== startedFrom;
     if (assigns) await assertAssignees(tx, worksheet, input);
 
     const before = { checkerId: worksheet.checkerUserId, approverId: worksheet.approverUserId };
@@ -67,7 +72,7 @@ export async function updateWorksheet(
       draft = await applyDraft(tx, revision, { circuit: input.circuit, settings: input.settings });
     }
     const changed = [...names, ...draft.changed];
-    if (changed.length === 0 && !draft.computed) return readWorksheet(tx, id);
+    if (changed.length === 0 && !draft.computed && !started) return readWorksheet(tx, id);
 
     await saveWorksheet(tx, worksheet, { ...changes, version: worksheet.version + 1 });
     const onlyAssignment = changed.every((n) => n === 'checkerId' || n === 'approverId');
@@ -79,6 +84,7 @@ export async function updateWorksheet(
         version: worksheet.version,
         revision: worksheet.currentRevision,
         changed,
+        ...(started ? { startedFrom } : {}),
         ...(assigns
           ? {
               before,

@@ -51,4 +51,19 @@ describe('ability rules', () => {
     expect(a.can('update', subject('Worksheet', { authorId: me }))).toBe(true);
     expect(a.can('update', subject('Worksheet', { authorId: other }))).toBe(false);
   });
+
+  it('findings: the author answers those on their own worksheets; a checker raises and closes them on others’ only', () => {
+    const author = defineAbilityFor({ userId: me, roles: ['author'] });
+    const checker = defineAbilityFor({ userId: me, roles: ['checker'] });
+    const own = subject('Finding', { worksheetAuthorId: me });
+    const theirs = subject('Finding', { worksheetAuthorId: other });
+    expect(author.can('answer', own)).toBe(true);
+    expect(author.can('answer', theirs)).toBe(false);
+    expect(author.can('close', theirs)).toBe(false);
+    expect(checker.can('create', theirs)).toBe(true);
+    expect(checker.can('close', theirs)).toBe(true);
+    expect(checker.can('create', own)).toBe(false);
+    expect(checker.can('close', own)).toBe(false);
+    expect(checker.can('answer', own)).toBe(false);
+  });
 });

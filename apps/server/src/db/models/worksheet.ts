@@ -11,6 +11,8 @@ export interface WorksheetAttributes {
   authorUserId: string;
   checkerUserId: string | null;
   approverUserId: string | null;
+  /** Who accepted the current revision (set on accept, cleared on submit). */
+  checkedByUserId: string | null;
   state: WorksheetState;
   /** Letter of the current revision (A, B, C…). */
   currentRevision: string;
@@ -25,6 +27,7 @@ type Creation = Optional<
   | 'description'
   | 'checkerUserId'
   | 'approverUserId'
+  | 'checkedByUserId'
   | 'state'
   | 'currentRevision'
   | 'version'
@@ -45,6 +48,7 @@ export function defineWorksheet(sequelize: Sequelize): ModelStatic<WorksheetRow>
       authorUserId: { type: DataTypes.UUID, allowNull: false },
       checkerUserId: { type: DataTypes.UUID, allowNull: true },
       approverUserId: { type: DataTypes.UUID, allowNull: true },
+      checkedByUserId: { type: DataTypes.UUID, allowNull: true },
       state: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'draft' },
       currentRevision: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'A' },
       version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },

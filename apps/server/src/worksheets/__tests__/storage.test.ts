@@ -39,7 +39,12 @@ describe('worksheet storage', () => {
     }));
     expect(seen.projects.map((r) => r.id)).toEqual([home.projectId]);
     expect(seen.worksheets.map((r) => r.id).sort()).toEqual(
-      [home.worksheetId, home.assignedWorksheetId].sort(),
+      [
+        home.worksheetId,
+        home.assignedWorksheetId,
+        home.inCheckWorksheetId,
+        home.checkedWorksheetId,
+      ].sort(),
     );
     expect(new Set(seen.revisions.map((r) => r.orgId))).toEqual(new Set([home.org.id]));
     expect(seen.models.map((r) => r.id)).toEqual([home.modelId]);

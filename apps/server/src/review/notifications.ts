@@ -1,0 +1,86 @@
+import type { WorkflowAction } from '@biasproof/shared';
+import type { OrgTx } from '../orgs/org-scope.ts';
+import type { WorksheetRow } from '../db/models/worksheet.ts';
+import type { OutboxEntry } from '../outbox/outbox.ts';
+import { listFindings } from './repository.ts';
+
+interface Person {
+  email: string;
+  name: string;
+}
+
+async function person(tx: OrgTx, id: string | null): Promise<Person | null> {
+  if (!id) return null;
+  const user = await tx.models.User.findByPk(id, { transaction: tx.transaction });
+  return user && !user.disabled ? { email: user.email, name: user.name } : null;
+}
+
+/**
+ * The e-mails a transition triggers, to whoever acts next: submitted → the checker, returned →
+ * the author with the open findings, accepted → the approver, signed → the author and the
+ * checker. Written to the outbox in the transition's transaction.
+ */
+export async function transitionMails(
+  tx: OrgTx,
+  s: {
+    action: WorkflowAction;
+    worksheet: WorksheetRow;
+    revision: string;
+    actorName: string;
+    appUrl: string;
+  },
+): Promise<OutboxEntry[]> {
+  const { worksheet: w, revision } = s;
+  const org = await tx.models.Organization.findByPk(tx.orgId, { transaction: tx.transaction });
+  const link = `${s.appUrl.replace(/\/$/, '')}/o/${org?.slug ?? ''}/worksheets/${w.id}`;
+  const title = `"${w.title}" revision ${revision}`;
+  const mail = (
+    kind: string,
+    to: Person | null,
+    subject: string,
+    lines: string[],
+  ): OutboxEntry[] =>
+    to
+      ? [
+          {
+            kind,
+            to: to.email,
+            subject,
+            text: [`Hello ${to.name},`, '', ...lines, '', link].join('\n'),
+          },
+        ]
+      : [];
+  const author = await person(tx, w.authorUserId);
+  switch (s.action) {
+    case 'submit':
+      return mail('worksheet.submitted', await person(tx, w.checkerUserId), `To check: ${title}`, [
+        `${s.actorName} submitted ${title} for your check.`,
+      ]);
+    case 'return': {
+      const open = (await listFindings(tx, w.id)).filter((f) => f.status !== 'closed');
+      return mail('worksheet.returned', author, `Returned: ${title}`, [
+        `${s.actorName} returned ${title} to you.`,
+        ...(open.length
+          ? ['', 'Open findings:', ...open.map((f) => `- [${f.severity}] ${f.path}: ${f.text}`)]
+          : []),
+      ]);
+    }
+    case 'accept':
+      return mail(
+        'worksheet.accepted',
+        await person(tx, w.approverUserId),
+        `To sign off: ${title}`,
+        [`${s.actorName} accepted ${title}; it awaits your signature.`],
+      );
+    case 'sign': {
+      const checker = await person(tx, w.checkedByUserId ?? w.checkerUserId);
+      const lines = [`${s.actorName} signed off ${title}.`];
+      return [
+        ...mail('worksheet.signed', author, `Signed off: ${title}`, lines),
+        ...mail('worksheet.signed', checker, `Signed off: ${title}`, lines),
+      ];
+    }
+    case 'withdraw':
+      return [];
+  }
+}
