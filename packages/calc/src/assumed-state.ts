@@ -42,6 +42,22 @@ function makeSwitchDiode(
   slope: number,
 ): SwitchDiode {
   const at = (r: number, c: number): number => r * stride + c;
+  /** Operating quantities at the solution x. */
+  const operatingPoint = (x: Float64Array, gmin: number): DiodeOp => {
+    const vd = x[anode]! - x[cathode]!;
+    const id = d.on ? x[branch]! : gmin * vd;
+    const region = d.on ? 'forward' : vd < 0 ? 'reverse' : 'off';
+    return {
+      kind: 'D',
+      region,
+      id,
+      vd,
+      vj: vd,
+      rd: d.on ? slope : Infinity,
+      rs: 0,
+      power: vd * id,
+    };
+  };
   const d: SwitchDiode = {
     name,
     on: false,
@@ -69,25 +85,20 @@ function makeSwitchDiode(
       return false;
     },
     report(x, gmin) {
-      const vd = x[anode]! - x[cathode]!;
-      const id = d.on ? x[branch]! : gmin * vd;
-      const region = d.on ? 'forward' : vd < 0 ? 'reverse' : 'off';
+      const op = operatingPoint(x, gmin);
       return {
-        op: {
-          kind: 'D',
-          region,
-          id,
-          vd,
-          vj: vd,
-          rd: d.on ? slope : Infinity,
-          rs: 0,
-          power: vd * id,
-        },
+        op,
         terminals: [
-          { node: anode, current: id },
-          { node: cathode, current: -id },
+          { node: anode, current: op.id },
+          { node: cathode, current: -op.id },
         ],
       };
+    },
+    reportInto(x, gmin, kcl) {
+      const op = operatingPoint(x, gmin);
+      kcl[anode]! += op.id;
+      kcl[cathode]! += -op.id;
+      return op;
     },
     linearize(_x, gmin) {
       return [

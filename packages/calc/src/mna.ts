@@ -7,7 +7,7 @@ import { makeMosfetStamp } from './models/mosfet-stamp.ts';
 import { mosfetAtTemperature } from './models/mosfet.ts';
 import type { DeviceStamp } from './models/stamp.ts';
 import type { ResultShapes } from './operating-point.ts';
-import { stampLinear } from './mna-linear.ts';
+import { stampLinear, type LinearPlan } from './mna-linear.ts';
 import { GROUND, type ValidatedCircuit } from './topology.ts';
 
 /**
@@ -66,6 +66,11 @@ export interface MnaSystem {
    * the variants a prepared circuit derives from it (their element names are the same).
    */
   resultShapes: { value: ResultShapes | undefined };
+  /**
+   * Which elements write which entries of g0/b0, made when a prepared circuit's variant is first
+   * re-stamped and shared by all its variants (their topology is the same).
+   */
+  linearPlan: { value: LinearPlan | undefined };
 }
 
 /** Builds the stamp of a diode under a simplified law (see assumed-state.ts). */
@@ -136,6 +141,7 @@ export function buildSystem(v: ValidatedCircuit, opts: BuildOptions): MnaSystem 
     g0,
     b0,
     resultShapes: { value: undefined },
+    linearPlan: { value: undefined },
   };
 }
 

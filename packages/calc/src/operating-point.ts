@@ -113,15 +113,12 @@ export function buildOperatingPoint(
     let current = 0;
     let power: number;
     if (ce.device) {
-      const rep = ce.device.report(x, meta.gmin) as {
-        op: DeviceOp;
-        terminals: { node: number; current: number }[];
-      };
-      devices[el.name] = rep.op;
-      const terminals = rep.terminals;
-      for (let t = 0; t < terminals.length; t++) kcl[terminals[t]!.node]! += terminals[t]!.current;
-      current = terminals[0]!.current;
-      power = rep.op.power;
+      // The device adds its terminal currents to the KCL sums itself, in terminal order.
+      const op = ce.device.reportInto(x, meta.gmin, kcl) as DeviceOp;
+      devices[el.name] = op;
+      // The current into the first terminal (collector, anode, drain).
+      current = op.kind === 'Q' ? op.ic : op.id;
+      power = op.power;
     } else {
       switch (el.kind) {
         case 'R':

@@ -1,7 +1,7 @@
 import type { CircuitInput, Element } from './circuit.ts';
 import { solveAssumedState } from './assumed-state.ts';
 import { EngineError } from './errors.ts';
-import { stampLinear } from './mna-linear.ts';
+import { linearPlan, restampLinear } from './mna-linear.ts';
 import { buildSystem, type CompiledElement, type MnaSystem } from './mna.ts';
 import { createWork, type NewtonWork } from './newton.ts';
 import { solveNonlinear } from './solve-nonlinear.ts';
@@ -17,8 +17,9 @@ import { prepareCircuit, type ValidatedCircuit } from './topology.ts';
  * Repeated bias-point solves of one circuit topology, the way a design loop (or ngspice's
  * `alter` + `op`) runs them: validate and compile the circuit once, change element values in the
  * compiled structure, and solve each variant from scratch. Every solve starts Newton from the
- * same initial guess as a cold solve and gives the same result to the last bit: the changed
- * value is re-stamped by the very routine that stamps a first build.
+ * same initial guess as a cold solve and gives the same result to the last bit: the matrix
+ * entries the changed element writes are summed again from all their terms, in the order and
+ * with the arithmetic of a first build (mna-linear.ts).
  */
 
 /** The compiled MNA system of a prepared circuit at one temperature. */
@@ -36,7 +37,8 @@ export interface CompiledCircuit {
   /**
    * Which compiled elements the linear stamps in `system.g0`/`system.b0` belong to. Variants
    * share those two buffers (allocating them per variant would cost more than stamping), so a
-   * solve re-stamps them when they hold another variant's values.
+   * solve re-stamps the entries of the elements that differ when they hold another variant's
+   * values.
    */
   stamped: { elements: readonly CompiledElement[] };
 }
@@ -166,8 +168,8 @@ function withValue(el: Element, value: number): Element {
 /**
  * The prepared circuit with one element's value replaced: a resistor's, capacitor's or
  * inductor's value (Ω, F, H; > 0), a V or I source's DC value (V, A), an E or G source's gain.
- * The original is left as it was. The compiled structure is shared; only the linear stamps are
- * redone, so the next solve costs no compilation. Throws EngineError `bad-option` for a name
+ * The original is left as it was. The compiled structure is shared; only the linear stamps the
+ * element writes are redone, so the next solve costs no compilation. Throws EngineError `bad-option` for a name
  * that is not in the circuit and `bad-value` for a value the element cannot take (or a D, Q, M).
  */
 export function withElementValue(
@@ -213,9 +215,12 @@ export function solvePreparedResolved(
     return solveAssumedState(prepared, resolved);
   const compiled = compiledAt(prepared, resolved);
   const { system, work } = compiled;
-  if (compiled.stamped.elements !== system.elements) {
-    stampLinear(system.elements, system.stride, system.g0, system.b0);
-    compiled.stamped.elements = system.elements;
+  const stamped = compiled.stamped;
+  if (stamped.elements !== system.elements) {
+    // Only the entries of the elements that differ from the stamped variant's are summed again.
+    const plan = (system.linearPlan.value ??= linearPlan(system.elements, system.stride));
+    restampLinear(stamped.elements, system.elements, plan, system.stride, system.g0, system.b0);
+    stamped.elements = system.elements;
   }
   const r = solveNonlinear(system, work, {
     maxIterations: resolved.maxIterations,

@@ -218,6 +218,40 @@ export function makeBjtStamp(
   // held in a closure variable is boxed anew on every store.
   const old = new Float64Array(2);
   let pendingSeed = true;
+  /** Operating quantities at the solution x (no limiting). */
+  const operatingPoint = (x: Float64Array, gmin: number): BjtOp => {
+    const vbeI = t * (x[bi]! - x[ei]!);
+    const vbcI = t * (x[bi]! - x[ci]!);
+    const r = gummelPoon(q, vbeI, vbcI, gmin);
+    const ic = t * r[0]!;
+    const ib = t * r[1]!;
+    const ie = -ic - ib;
+    const vbe = x[nd.b]! - x[nd.e]!;
+    const vbc = x[nd.b]! - x[nd.c]!;
+    const beOn = vbeI >= q.vonBe;
+    const bcOn = vbcI >= q.vonBc;
+    const region = beOn ? (bcOn ? 'saturation' : 'active') : bcOn ? 'reverse-active' : 'cut-off';
+    const gpi = r[2]!;
+    const go = r[5]!;
+    const gm = r[4]!;
+    return {
+      kind: 'Q',
+      polarity: t === 1 ? 'NPN' : 'PNP',
+      region,
+      ic,
+      ib,
+      ie,
+      vbe,
+      vce: vbe - vbc,
+      vbc,
+      gm,
+      rpi: 1 / gpi,
+      ro: go === 0 ? Infinity : 1 / go,
+      betaDc: ic / ib,
+      betaAc: gm / gpi,
+      power: ic * x[nd.c]! + ib * x[nd.b]! + ie * x[nd.e]!,
+    };
+  };
   return {
     name,
     ports: [
@@ -280,44 +314,22 @@ export function makeBjtStamp(
       return limited;
     },
     report(x, gmin) {
-      const vbeI = t * (x[bi]! - x[ei]!);
-      const vbcI = t * (x[bi]! - x[ci]!);
-      const r = gummelPoon(q, vbeI, vbcI, gmin);
-      const ic = t * r[0]!;
-      const ib = t * r[1]!;
-      const ie = -ic - ib;
-      const vbe = x[nd.b]! - x[nd.e]!;
-      const vbc = x[nd.b]! - x[nd.c]!;
-      const beOn = vbeI >= q.vonBe;
-      const bcOn = vbcI >= q.vonBc;
-      const region = beOn ? (bcOn ? 'saturation' : 'active') : bcOn ? 'reverse-active' : 'cut-off';
-      const gpi = r[2]!;
-      const go = r[5]!;
-      const gm = r[4]!;
+      const op = operatingPoint(x, gmin);
       return {
-        op: {
-          kind: 'Q',
-          polarity: t === 1 ? 'NPN' : 'PNP',
-          region,
-          ic,
-          ib,
-          ie,
-          vbe,
-          vce: vbe - vbc,
-          vbc,
-          gm,
-          rpi: 1 / gpi,
-          ro: go === 0 ? Infinity : 1 / go,
-          betaDc: ic / ib,
-          betaAc: gm / gpi,
-          power: ic * x[nd.c]! + ib * x[nd.b]! + ie * x[nd.e]!,
-        },
+        op,
         terminals: [
-          { node: nd.c, current: ic },
-          { node: nd.b, current: ib },
-          { node: nd.e, current: ie },
+          { node: nd.c, current: op.ic },
+          { node: nd.b, current: op.ib },
+          { node: nd.e, current: op.ie },
         ],
       };
+    },
+    reportInto(x, gmin, kcl) {
+      const op = operatingPoint(x, gmin);
+      kcl[nd.c]! += op.ic;
+      kcl[nd.b]! += op.ib;
+      kcl[nd.e]! += op.ie;
+      return op;
     },
     linearize(x, gmin): LinearPart[] {
       const r = gummelPoon(q, t * (x[bi]! - x[ei]!), t * (x[bi]! - x[ci]!), gmin);

@@ -82,6 +82,15 @@ export function makeDiodeStamp(
     junctionOut[0]! += gmin * vd;
     junctionOut[1]! += gmin;
   };
+  /** Operating quantities at the solution x (no limiting). */
+  const operatingPoint = (x: Float64Array, gmin: number): DiodeOp => {
+    const vj = x[anode]! - x[cathode]!;
+    const vd = x[terminalAnode]! - x[cathode]!;
+    evaluate(vj, gmin);
+    const id = junctionOut[0]!;
+    const region = vj < 0 ? 'reverse' : vj >= d.von ? 'forward' : 'off';
+    return { kind: 'D', region, id, vd, vj, rd: 1 / junctionOut[1]!, rs: d.rs, power: vd * id };
+  };
   return {
     name,
     ports: [{ label: 'D', p: anode, m: cathode, polarity: 1, nvt: d.nvt }],
@@ -115,18 +124,20 @@ export function makeDiodeStamp(
       return limited;
     },
     report(x, gmin) {
-      const vj = x[anode]! - x[cathode]!;
-      const vd = x[terminalAnode]! - x[cathode]!;
-      evaluate(vj, gmin);
-      const id = junctionOut[0]!;
-      const region = vj < 0 ? 'reverse' : vj >= d.von ? 'forward' : 'off';
+      const op = operatingPoint(x, gmin);
       return {
-        op: { kind: 'D', region, id, vd, vj, rd: 1 / junctionOut[1]!, rs: d.rs, power: vd * id },
+        op,
         terminals: [
-          { node: terminalAnode, current: id },
-          { node: cathode, current: -id },
+          { node: terminalAnode, current: op.id },
+          { node: cathode, current: -op.id },
         ],
       };
+    },
+    reportInto(x, gmin, kcl) {
+      const op = operatingPoint(x, gmin);
+      kcl[terminalAnode]! += op.id;
+      kcl[cathode]! += -op.id;
+      return op;
     },
     linearize(x, gmin): LinearPart[] {
       evaluate(x[anode]! - x[cathode]!, gmin);

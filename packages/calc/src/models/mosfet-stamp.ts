@@ -66,6 +66,48 @@ export function makeMosfetStamp(
     a[q * stride + q]! += gv;
   };
 
+  /** Source and bulk currents of the last operatingPoint, A: [is, ib]. */
+  const currents = new Float64Array(2);
+  /** Operating quantities at the solution x (no limiting). */
+  const operatingPoint = (x: Float64Array, gmin: number): MosfetOp => {
+    const vgs = t * (x[g]! - x[si]!);
+    const vds = t * (x[di]! - x[si]!);
+    const vbs = t * (x[b]! - x[si]!);
+    const vbd = vbs - vds;
+    const mode = vds >= 0 ? 1 : -1;
+    const r =
+      mode === 1 ? shichmanHodges(m, vgs, vds, vbs) : shichmanHodges(m, vgs - vds, -vds, vbd);
+    const cdrain = r[0]!,
+      gm = r[1]!,
+      gds = r[2]!,
+      gmbs = r[3]!,
+      von = r[4]!;
+    const vgst = (mode === 1 ? vgs : vgs - vds) - von;
+    bulkJunction(vbs, m.isat, m.vt, gmin);
+    const cbs = bulk[0]!;
+    bulkJunction(vbd, m.isat, m.vt, gmin);
+    const cbd = bulk[0]!;
+    const id = t * (mode * cdrain - cbd);
+    const is = t * (-mode * cdrain - cbs);
+    const ib = t * (cbd + cbs);
+    const region = vgst <= 0 ? 'cut-off' : vgst <= vds * mode ? 'saturation' : 'triode';
+    currents[0] = is;
+    currents[1] = ib;
+    return {
+      kind: 'M',
+      polarity: t === 1 ? 'NMOS' : 'PMOS',
+      region,
+      id,
+      vgs: x[g]! - x[nd.s]!,
+      vds: x[nd.d]! - x[nd.s]!,
+      vbs: x[b]! - x[nd.s]!,
+      vth: t * von,
+      gm,
+      gmb: gmbs,
+      ro: gds === 0 ? Infinity : 1 / gds,
+      power: id * x[nd.d]! + is * x[nd.s]! + ib * x[b]!,
+    };
+  };
   return {
     name,
     ports: [{ label: 'GS', p: g, m: si, polarity: t, nvt: 0 }],
@@ -160,49 +202,24 @@ export function makeMosfetStamp(
       return limited;
     },
     report(x, gmin) {
-      const vgs = t * (x[g]! - x[si]!);
-      const vds = t * (x[di]! - x[si]!);
-      const vbs = t * (x[b]! - x[si]!);
-      const vbd = vbs - vds;
-      const mode = vds >= 0 ? 1 : -1;
-      const r =
-        mode === 1 ? shichmanHodges(m, vgs, vds, vbs) : shichmanHodges(m, vgs - vds, -vds, vbd);
-      const cdrain = r[0]!,
-        gm = r[1]!,
-        gds = r[2]!,
-        gmbs = r[3]!,
-        von = r[4]!;
-      const vgst = (mode === 1 ? vgs : vgs - vds) - von;
-      bulkJunction(vbs, m.isat, m.vt, gmin);
-      const cbs = bulk[0]!;
-      bulkJunction(vbd, m.isat, m.vt, gmin);
-      const cbd = bulk[0]!;
-      const id = t * (mode * cdrain - cbd);
-      const is = t * (-mode * cdrain - cbs);
-      const ib = t * (cbd + cbs);
-      const region = vgst <= 0 ? 'cut-off' : vgst <= vds * mode ? 'saturation' : 'triode';
+      const op = operatingPoint(x, gmin);
       return {
-        op: {
-          kind: 'M',
-          polarity: t === 1 ? 'NMOS' : 'PMOS',
-          region,
-          id,
-          vgs: x[g]! - x[nd.s]!,
-          vds: x[nd.d]! - x[nd.s]!,
-          vbs: x[b]! - x[nd.s]!,
-          vth: t * von,
-          gm,
-          gmb: gmbs,
-          ro: gds === 0 ? Infinity : 1 / gds,
-          power: id * x[nd.d]! + is * x[nd.s]! + ib * x[b]!,
-        },
+        op,
         terminals: [
-          { node: nd.d, current: id },
+          { node: nd.d, current: op.id },
           { node: g, current: 0 },
-          { node: nd.s, current: is },
-          { node: b, current: ib },
+          { node: nd.s, current: currents[0]! },
+          { node: b, current: currents[1]! },
         ],
       };
+    },
+    reportInto(x, gmin, kcl) {
+      const op = operatingPoint(x, gmin);
+      kcl[nd.d]! += op.id;
+      kcl[g]! += 0;
+      kcl[nd.s]! += currents[0]!;
+      kcl[b]! += currents[1]!;
+      return op;
     },
     linearize(x, gmin): LinearPart[] {
       const vgs = t * (x[g]! - x[si]!);

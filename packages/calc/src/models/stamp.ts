@@ -55,6 +55,11 @@ export interface DeviceStamp<Op = unknown> {
   load(x: Float64Array, a: Float64Array, b: Float64Array, gmin: number): boolean;
   /** Operating quantities and terminal currents at the solution x (no limiting). */
   report(x: Float64Array, gmin: number): DeviceReport<Op>;
+  /**
+   * The operating quantities of {@link report}; instead of returning the terminal currents, adds
+   * each to `kcl[node]`, in terminal order (no arrays for the result builder to allocate).
+   */
+  reportInto(x: Float64Array, gmin: number, kcl: Float64Array): Op;
   /** The device's small-signal equivalent at the solution x. */
   linearize(x: Float64Array, gmin: number): LinearPart[];
 }
