@@ -86,6 +86,7 @@ describe('choosing the diode law', () => {
     expect(
       await screen.findByText("'0.7A' is not a value in V: it ends in 'A' where V was expected"),
     ).toBeDefined();
-    expect(resultText('nodes.out')).toBe(formatValue(0.7, 'V'));
+    // Typing passes through valid values (0, 0.7) whose previews may still be on their way.
+    await expectResult('nodes.out', 0.7, 'V');
   });
 });
