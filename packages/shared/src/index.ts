@@ -14,3 +14,6 @@ export * from './api/worksheets.ts';
 export * from './api/model-library.ts';
 export * from './workflow.ts';
 export * from './api/review.ts';
+export * from './api/history.ts';
+export * from './api/attachments.ts';
+export * from './api/notifications.ts';

@@ -19,6 +19,14 @@ export const auditEventSchema = z.object({
   action: z.string(),
   targetType: z.string(),
   targetId: z.string().nullable(),
+  /** The worksheet revision letter the event concerns, when it concerns one. */
+  revision: z.string().nullable(),
+  /** One line a person reads, e.g. `Submitted "Mic preamp" revision A for check`. */
+  summary: z.string(),
+  projectId: z.string().nullable(),
+  worksheetId: z.string().nullable(),
+  ip: z.string().nullable(),
+  userAgent: z.string().nullable(),
   details: z.record(z.string(), z.unknown()),
 });
 export type AuditEvent = z.infer<typeof auditEventSchema>;
@@ -35,7 +43,9 @@ const isoDateOrDateTime = z
 
 /**
  * Query of `GET /api/orgs/:orgId/audit`: `action` (exact name), `actor` (user id), `from`/`to`
- * (ISO date or date-time, inclusive; a bare `to` date includes that whole day, UTC), paging.
+ * (ISO date or date-time, inclusive; a bare `to` date includes that whole day, UTC),
+ * `project` and `worksheet` (ids), paging. `GET …/audit/export.csv` takes the same filters
+ * without paging and answers every matching row as CSV.
  */
 export const auditListQuerySchema = z.object({
   action: z
@@ -45,6 +55,8 @@ export const auditListQuerySchema = z.object({
     .max(100, 'An action name has at most 100 characters.')
     .optional(),
   actor: z.uuid('Choose a person from the list.').optional(),
+  project: z.uuid('Choose a project from the list.').optional(),
+  worksheet: z.uuid('Choose a worksheet from the list.').optional(),
   from: isoDateOrDateTime.optional(),
   to: isoDateOrDateTime.optional(),
   limit: z.coerce

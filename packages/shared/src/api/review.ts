@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { workflowActions } from '../workflow.ts';
-import { personRefSchema, worksheetStateSchema } from './worksheets.ts';
+import { personRefSchema, worksheetListItemSchema, worksheetStateSchema } from './worksheets.ts';
 
 /** Signature meanings an organization offers when its settings name none. */
 export const defaultSignatureMeanings = ['Reviewed', 'Approved for release'] as const;
@@ -86,9 +86,23 @@ export const findingAnswerRequestSchema = z.object({
 });
 export const findingCommentRequestSchema = z.object({ text: commentSchema.default('') });
 
+/**
+ * `POST /api/orgs/:orgId/findings/:findingId/replies`: a comment in the thread that moves
+ * nothing (the author, a checker or an approver of the organization; status unchanged).
+ */
+export const findingReplyRequestSchema = z.object({
+  text: commentSchema.min(1, 'Write your reply.'),
+});
+export type FindingReplyRequest = z.input<typeof findingReplyRequestSchema>;
+
+export const findingReplyKinds = ['answer', 'close', 'reopen', 'reply'] as const;
+
+/** A number as a finding pins it: finite numbers as numbers, anything else as text, null when absent. */
+export const pinnedValueSchema = z.union([z.number(), z.string()]).nullable();
+
 export const findingReplySchema = z.object({
   id: z.string(),
-  kind: z.enum(['answer', 'close', 'reopen']),
+  kind: z.enum(findingReplyKinds),
   text: z.string(),
   by: personRefSchema,
   at: z.string(),
@@ -107,6 +121,14 @@ export const findingSchema = z.object({
   createdAt: z.string(),
   updatedAt: z.string(),
   replies: z.array(findingReplySchema),
+  /** Raised on an earlier revision than the worksheet's current one and not closed there: carried forward. */
+  carried: z.boolean(),
+  /** The pinned number in the revision the finding was raised on. */
+  pinnedValue: pinnedValueSchema,
+  /** The same path in the worksheet's current revision. */
+  currentValue: pinnedValueSchema,
+  /** True when the current revision's number differs from the pinned one (a carried finding to look at again). */
+  valueChanged: z.boolean(),
 });
 export type Finding = z.infer<typeof findingSchema>;
 export const findingListSchema = z.object({ items: z.array(findingSchema), total: z.number() });
@@ -127,3 +149,17 @@ export const signatureSchema = z.object({
 });
 export type Signature = z.infer<typeof signatureSchema>;
 export const signatureListSchema = z.object({ items: z.array(signatureSchema), total: z.number() });
+
+/**
+ * `GET /api/orgs/:orgId/queue`: the signed-in member's work. `toCheck`: in check with me as
+ * checker; `toSign`: checked with me as approver; `returnedToMe`: returned, my worksheets;
+ * `recentlySigned`: signed off in the last 30 days where I was author, checker or approver
+ * (newest first, at most 20 each list).
+ */
+export const queueResponseSchema = z.object({
+  toCheck: z.array(worksheetListItemSchema),
+  toSign: z.array(worksheetListItemSchema),
+  returnedToMe: z.array(worksheetListItemSchema),
+  recentlySigned: z.array(worksheetListItemSchema),
+});
+export type QueueResponse = z.infer<typeof queueResponseSchema>;
