@@ -15,6 +15,7 @@ import { findOrganizationBySlug } from '../../apps/server/src/orgs/repository.ts
 import { inTransaction } from '../../apps/server/src/db/transactions.ts';
 import { DEMO_PASSWORD, demoOrganizations } from './demo-organizations.ts';
 import { modelLibrary, projectsAndWorksheets } from './demo-worksheet-steps.ts';
+import { reviewHistory } from './demo-review-steps.ts';
 
 export interface DemoStepResult {
   /** True when this run wrote the step's data (false when it was already there). */
@@ -115,4 +116,5 @@ export const demoSteps: DemoStep[] = [
   pendingInvitations,
   modelLibrary,
   projectsAndWorksheets,
+  reviewHistory,
 ];

@@ -28,14 +28,14 @@ import {
   type DemoWorksheet,
 } from './demo-worksheets.ts';
 
-interface DemoOrg {
+export interface DemoOrg {
   id: string;
   /** The org context of a demo person, acting with their roles. */
   as(email: string): OrgContext;
   userId(email: string): string;
 }
 
-async function demoOrg(sequelize: Sequelize): Promise<DemoOrg> {
+export async function demoOrg(sequelize: Sequelize): Promise<DemoOrg> {
   const emails = new Set([
     ...demoModels.map((m) => m.createdBy),
     ...demoProjects.flatMap((p) => [

@@ -13,8 +13,11 @@ import { createPasswordHasher } from './auth/passwords.ts';
 import { sessionMiddleware, sessionTimeouts } from './auth/session.ts';
 import { createCsrf } from './auth/csrf.ts';
 import { authRoutes } from './auth/routes.ts';
+import { accountRoutes } from './auth/account-routes.ts';
+import { requestContext } from './audit/request-context.ts';
 import { invitationPublicRoutes } from './invitations/routes.ts';
 import { orgRoutes } from './orgs/routes.ts';
+import { recordRoutes } from './records/routes.ts';
 import { calcRoutes } from './calc/routes.ts';
 import { MAX_DRAFT_BYTES } from '@biasproof/shared';
 
@@ -65,8 +68,14 @@ export function createApp({ config, sequelize, logger, mailer }: AppDeps): Expre
     sessionTimeouts(config),
     ...csrf.middleware,
   );
+  // After the session store (whose callbacks would drop it): the client's address and user
+  // agent for the audit events this request writes.
+  api.use(requestContext());
   api.use('/auth', authRoutes(svc, csrf));
+  api.use('/account', accountRoutes(svc));
   api.use('/invitations', invitationPublicRoutes(svc, csrf));
+  // Record downloads go first: `worksheets/export.csv` is not a worksheet id.
+  api.use('/orgs/:orgId/worksheets', recordRoutes(svc));
   api.use('/orgs/:orgId', orgRoutes(svc));
   api.use('/calc', calcRoutes(svc));
   api.use(apiNotFound);

@@ -62,3 +62,16 @@ Q1 c b e QN
 .ac lin 200 10 10meg
 .end
 `;
+
+/** The Monte Carlo benchmark's common-emitter stage: four resistors (±1 %) and one BJT (BF ±30 %). */
+export const ceStage = `Common-emitter stage for Monte Carlo
+VCC vcc 0 DC 12
+R1 vcc b 56k
+R2 b 0 12k
+RC vcc c 3.9k
+RE e 0 1k
+Q1 c b e QN
+.model QN NPN (IS=2e-15 BF=180 BR=4 VAF=90 VAR=25)
+.op
+.end
+`;

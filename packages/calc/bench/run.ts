@@ -12,6 +12,7 @@ import type { Circuit } from '../src/circuit.ts';
 import type { OperatingPoint } from '../src/dc.ts';
 import { parseDeck } from '../src/deck-parse.ts';
 import { acAmplifier, bjtAmplifier, diodeNetwork, ladder } from './circuits.ts';
+import { monteCarloRows } from './monte-carlo.ts';
 import { ngspiceAvailable, ngspiceLoopRun, ngspiceVersion, type LoopRun } from './ngspice-loop.ts';
 
 /**
@@ -154,6 +155,9 @@ if (withNgspice) {
 } else {
   rows.push(['ngspice batch loop', 'not run: install Debian package ngspice']);
 }
+
+// Monte Carlo of a CE stage against ngspice's alter/altermod/op loop (bench/monte-carlo.ts).
+rows.push(...monteCarloRows());
 
 const width = Math.max(...rows.map(([label]) => label.length));
 console.log(`Biasproof engine benchmark — ${machine()}`);

@@ -1,4 +1,6 @@
 import type { DeviceOp, OperatingPoint } from './dc.ts';
+import type { CornersResult } from './variation/corners.ts';
+import type { MonteCarloResult } from './variation/monte-carlo.ts';
 
 /**
  * The JSON shape `biasproof op` prints: a stable, documented subset of the operating point that
@@ -59,4 +61,45 @@ export function opReport(op: OperatingPoint): OpReport {
     Object.entries(op.devices).map(([name, d]) => [name.toLowerCase(), deviceReport(d)]),
   );
   return { nodes: lowercaseKeys(op.nodes), sources: lowercaseKeys(op.sources), devices };
+}
+
+/** What `biasproof mc` prints: the sample count, the failures and the statistics of one probe. */
+export interface McReport {
+  samples: number;
+  failed: number;
+  mean: number;
+  sigma: number;
+  min: number;
+  max: number;
+  p00135: number;
+  p50: number;
+  p99865: number;
+}
+
+export function mcReport(result: MonteCarloResult, probe: string): McReport {
+  const s = result.probes[probe]!.statistics;
+  return {
+    samples: result.samples,
+    failed: result.failed,
+    mean: s.mean,
+    sigma: s.sigma,
+    min: s.min,
+    max: s.max,
+    p00135: s.p00135,
+    p50: s.p50,
+    p99865: s.p99865,
+  };
+}
+
+/** What `biasproof corners` prints: the extremes of one probe and the parameter values at each. */
+export interface CornersReport {
+  min: number | null;
+  max: number | null;
+  minAt: Record<string, number>;
+  maxAt: Record<string, number>;
+}
+
+export function cornersReport(result: CornersResult, probe: string): CornersReport {
+  const p = result.probes[probe]!;
+  return { min: p.min, max: p.max, minAt: p.minAt, maxAt: p.maxAt };
 }

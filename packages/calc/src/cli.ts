@@ -1,11 +1,14 @@
 import { readFileSync } from 'node:fs';
 import { runAcSweep } from './ac.ts';
-import { opReport } from './cli-report.ts';
+import { cornersReport, mcReport, opReport } from './cli-report.ts';
 import { solveOperatingPoint } from './dc.ts';
 import type { ParsedDeck } from './deck-parse.ts';
 import { parseDeck } from './deck-parse.ts';
 import { isEngineError } from './errors.ts';
 import { parseValue } from './values.ts';
+import { runCorners } from './variation/corners.ts';
+import { runMonteCarlo } from './variation/monte-carlo.ts';
+import { parseToleranceArgument } from './variation/tolerance-argument.ts';
 
 /**
  * The `biasproof` command: reads a SPICE deck, runs the engine and prints JSON for scripts.
@@ -15,6 +18,8 @@ import { parseValue } from './values.ts';
 export const usage = `Usage:
   biasproof op DECK [--temp C] [--quiet]
   biasproof ac DECK --probe NODE [--ref NODE] [--temp C] [--quiet]
+  biasproof mc DECK --samples N --seed S --probe PATH --tol NAME=P% [--tol ...] [--temp C]
+  biasproof corners DECK --probe PATH --tol NAME=P% [--tol ...] [--temp C]
   biasproof --help
 
 Commands:
@@ -24,10 +29,24 @@ Commands:
        (volts, amperes, siemens, ohms; names lowercase; source current positive into +).
   ac   Run the deck's .ac sweep and print {"freq":[Hz],"db":[dB],"deg":[degrees]} of
        V(NODE) (minus V(--ref NODE) when given) per unit AC stimulus.
+  mc   Monte Carlo of the bias point: N samples with every --tol parameter drawn from
+       a normal distribution whose 3σ is P % of its value, and print
+       {"samples":N,"failed":K,"mean":…,"sigma":…,"min":…,"max":…,"p00135":…,"p50":…,
+       "p99865":…} of PATH over the samples that converged (failed ones are counted in
+       "failed"). The same seed gives the same samples on any machine.
+  corners  Every combination of the --tol parameters at their ends (±P %; with more than
+       12 parameters a sensitivity-directed search) and print
+       {"min":…,"max":…,"minAt":{NAME:value},"maxAt":{NAME:value}} of PATH.
 
 Options:
   --probe NODE  node whose response "ac" prints (required for ac)
   --ref NODE    reference node of the response; default ground
+  --probe PATH  (mc, corners) a result path: nodes.NODE, sources.V, devices.DEV.QTY
+                (e.g. devices.q1.ic), elements.ELEM.current|power or supplyPower
+  --tol NAME=P% (mc, corners) vary NAME by ±P %: an element (its value) or MODEL.PARAM
+                (a model parameter, e.g. qn.bf=30%); repeat for each parameter
+  --samples N   (mc) number of samples, 1 to 100000
+  --seed S      (mc) seed of the random draws (any text or number)
   --temp C      circuit temperature in °C, overriding the deck's .temp (default 27)
   --quiet       do not print the deck's warnings on stderr
   -h, --help    show this text
@@ -38,7 +57,8 @@ exactly zero. (A BJT with VAF=0 keeps the tiny reverse-transport conductance of 
 Gummel-Poon model, so its ro is huge but finite.)
 Deck warnings (ignored cards and parameters) go to stderr.
 Exit status: 0 done; 2 bad input (missing file, bad deck, unsolvable circuit, no .ac
-card, unknown probe node), with one line on stderr; 1 an internal error.`;
+card, unknown probe node or result path, bad --tol), with one line on stderr; 1 an
+internal error.`;
 
 /** Where the command reads and writes; the bin wrapper passes the process's own. */
 export interface CliIo {
@@ -53,6 +73,9 @@ interface CliArgs {
   probe?: string;
   ref?: string;
   temp?: number;
+  samples?: number;
+  seed?: string;
+  tols: string[];
   quiet: boolean;
   help: boolean;
 }
@@ -60,7 +83,7 @@ interface CliArgs {
 class UsageError extends Error {}
 
 function parseArgs(argv: string[]): CliArgs {
-  const args: CliArgs = { quiet: false, help: false };
+  const args: CliArgs = { quiet: false, help: false, tols: [] };
   const positional: string[] = [];
   for (let i = 0; i < argv.length; i += 1) {
     const arg = argv[i] ?? '';
@@ -72,9 +95,13 @@ function parseArgs(argv: string[]): CliArgs {
     };
     if (arg === '-h' || arg === '--help') args.help = true;
     else if (arg === '--quiet') args.quiet = true;
-    else if (arg === '--probe') args.probe = value().toLowerCase();
+    // Kept as typed: result paths (mc, corners) are case-sensitive (supplyPower, betaDc).
+    else if (arg === '--probe') args.probe = value();
     else if (arg === '--ref') args.ref = value().toLowerCase();
     else if (arg === '--temp') args.temp = parseValue(value(), { unit: '°C' });
+    else if (arg === '--samples') args.samples = wholeNumber(arg, value());
+    else if (arg === '--seed') args.seed = value();
+    else if (arg === '--tol') args.tols.push(value());
     else if (arg.startsWith('-') && arg.length > 1 && !/^-\d/.test(arg))
       throw new UsageError(`unknown option ${arg}`);
     else positional.push(arg);
@@ -86,6 +113,11 @@ function parseArgs(argv: string[]): CliArgs {
     ...(command === undefined ? {} : { command }),
     ...(deck === undefined ? {} : { deck }),
   };
+}
+
+function wholeNumber(option: string, text: string): number {
+  if (!/^\d+$/.test(text)) throw new UsageError(`${option} needs a whole number, not '${text}'`);
+  return Number(text);
 }
 
 function readDeck(path: string, io: CliIo): ParsedDeck {
@@ -114,19 +146,48 @@ function runAc(args: CliArgs, deck: ParsedDeck): unknown {
   if (!sweep) throw new UsageError(`deck '${args.deck ?? ''}' has no .ac card to run`);
   if (!args.probe) throw new UsageError('ac needs --probe NODE');
   const nodes = nodeNames(deck);
-  for (const node of [args.probe, args.ref]) {
+  for (const node of [args.probe.toLowerCase(), args.ref]) {
     if (node !== undefined && !nodes.has(node))
       throw new UsageError(`probe node '${node}' is not in the deck`);
   }
   const temperature = args.temp ?? deck.directives.temperature;
   const result = runAcSweep(deck.circuit, {
     sweep,
-    probe: args.probe,
+    probe: args.probe.toLowerCase(),
     ...(args.ref === undefined ? {} : { reference: args.ref }),
     ...(temperature === undefined ? {} : { temperature }),
   });
   return { freq: result.freq, db: result.db, deg: result.deg };
 }
+
+/** The input both variation commands share: the deck's circuit and temperature, the probe and the tolerances. */
+function variationInput(args: CliArgs, deck: ParsedDeck) {
+  const command = args.command ?? '';
+  if (!args.probe) throw new UsageError(`${command} needs --probe PATH`);
+  if (args.tols.length === 0) throw new UsageError(`${command} needs at least one --tol NAME=P%`);
+  const temperature = args.temp ?? deck.directives.temperature;
+  return {
+    circuit: deck.circuit,
+    settings: temperature === undefined ? {} : { temperature },
+    parameters: args.tols.map(parseToleranceArgument),
+    probes: [args.probe],
+  };
+}
+
+function runMc(args: CliArgs, deck: ParsedDeck): unknown {
+  if (args.samples === undefined) throw new UsageError('mc needs --samples N');
+  if (args.seed === undefined) throw new UsageError('mc needs --seed S');
+  const input = variationInput(args, deck);
+  const result = runMonteCarlo({ ...input, samples: args.samples, seed: args.seed });
+  return mcReport(result, input.probes[0]!);
+}
+
+function runCornersCommand(args: CliArgs, deck: ParsedDeck): unknown {
+  const input = variationInput(args, deck);
+  return cornersReport(runCorners(input), input.probes[0]!);
+}
+
+const COMMANDS = ['op', 'ac', 'mc', 'corners'];
 
 function run(argv: string[], io: CliIo): number {
   const args = parseArgs(argv);
@@ -134,9 +195,10 @@ function run(argv: string[], io: CliIo): number {
     io.stdout(`${usage}\n`);
     return 0;
   }
-  if (args.command === undefined) throw new UsageError('no command given; expected op or ac');
-  if (args.command !== 'op' && args.command !== 'ac')
-    throw new UsageError(`unknown command '${args.command}'; expected op or ac`);
+  if (args.command === undefined)
+    throw new UsageError('no command given; expected op, ac, mc or corners');
+  if (!COMMANDS.includes(args.command))
+    throw new UsageError(`unknown command '${args.command}'; expected op, ac, mc or corners`);
   if (!args.deck) throw new UsageError(`${args.command} needs a DECK file`);
   const deck = readDeck(args.deck, io);
   if (!args.quiet)
@@ -147,8 +209,12 @@ function run(argv: string[], io: CliIo): number {
     output = opReport(
       solveOperatingPoint(deck.circuit, temperature === undefined ? {} : { temperature }),
     );
-  } else {
+  } else if (args.command === 'ac') {
     output = runAc(args, deck);
+  } else if (args.command === 'mc') {
+    output = runMc(args, deck);
+  } else {
+    output = runCornersCommand(args, deck);
   }
   // JSON has no Infinity: JSON.stringify writes null for it, as the help text promises.
   io.stdout(`${JSON.stringify(output, null, 2)}\n`);

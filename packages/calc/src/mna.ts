@@ -146,7 +146,7 @@ export function buildSystem(v: ValidatedCircuit, opts: BuildOptions): MnaSystem 
 }
 
 /** Internal nodes of a device with series resistances, appended to `unknownNames` (name → index). */
-function internalNodesOf(
+export function internalNodesOf(
   el: Element,
   cards: ValidatedCircuit['cards'],
   switchedDiodes: boolean,
@@ -172,7 +172,7 @@ function internalNodesOf(
 }
 
 /** The circuit temperature and the temperature-scaled parameters already computed, shared by devices of one card and geometry. */
-interface DeviceScaling {
+export interface DeviceScaling {
   /** K. */
   tempK: number;
   /** °C, unless a card gives TNOM. */
@@ -201,7 +201,7 @@ function addSeries(
 }
 
 /** The nonlinear stamp of a D, Q or M (and its series resistances, recorded on `ce`). */
-function compileDevice(
+export function compileDevice(
   v: ValidatedCircuit,
   el: Extract<Element, { kind: 'D' | 'Q' | 'M' }>,
   ce: CompiledElement,

@@ -186,7 +186,7 @@ describe('biasproof: bad input exits 2 with one line on stderr', () => {
     [
       'an unknown command',
       () => ['tran', deck('d-series.cir')],
-      /^biasproof: unknown command 'tran'; expected op or ac/,
+      /^biasproof: unknown command 'tran'; expected op, ac, mc or corners/,
     ],
     [
       'an unknown option',
@@ -197,7 +197,7 @@ describe('biasproof: bad input exits 2 with one line on stderr', () => {
     [
       'no arguments at all',
       () => [],
-      /^biasproof: no command given; expected op or ac \(see biasproof --help\)$/,
+      /^biasproof: no command given; expected op, ac, mc or corners \(see biasproof --help\)$/,
     ],
     [
       'a bad --temp value',

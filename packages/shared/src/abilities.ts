@@ -26,7 +26,8 @@ export type Action =
   | 'assign'
   | 'export'
   | 'answer'
-  | 'close';
+  | 'close'
+  | 'reply';
 
 export interface MemberSubject {
   userId: string;
@@ -43,6 +44,12 @@ export interface FindingSubject {
   /** The author of the worksheet the finding is about. */
   worksheetAuthorId: string;
 }
+export interface AttachmentSubject {
+  /** The author of the worksheet the file is (or would be) attached to. */
+  worksheetAuthorId: string;
+  /** Who uploaded it; absent for a file not yet uploaded. */
+  uploadedById?: string;
+}
 
 export type SubjectName =
   | 'Organization'
@@ -54,14 +61,16 @@ export type SubjectName =
   | 'Worksheet'
   | 'Revision'
   | 'Finding'
-  | 'ModelLibrary';
+  | 'ModelLibrary'
+  | 'Attachment';
 
 type Subjects =
   | SubjectName
   | (MemberSubject & ForcedSubject<'Member'>)
   | (RevisionSubject & ForcedSubject<'Revision'>)
   | (WorksheetSubject & ForcedSubject<'Worksheet'>)
-  | (FindingSubject & ForcedSubject<'Finding'>);
+  | (FindingSubject & ForcedSubject<'Finding'>)
+  | (AttachmentSubject & ForcedSubject<'Attachment'>);
 
 export type AppAbility = MongoAbility<[Action, Subjects]>;
 
@@ -113,6 +122,8 @@ export function defineAbilityFor({ userId, roles }: AbilityInput): AppAbility {
   }
   if (has('author')) {
     can('answer', 'Finding', { worksheetAuthorId: userId });
+    // The author talks back in the threads of their own worksheets' findings.
+    can('reply', 'Finding', { worksheetAuthorId: userId });
   }
   if (has('checker')) {
     can('check', 'Revision');
@@ -122,6 +133,18 @@ export function defineAbilityFor({ userId, roles }: AbilityInput): AppAbility {
   }
   if (has('approver')) {
     can('sign', 'Revision');
+  }
+  // Reviewers may comment on any finding's thread; a reply moves nothing, so no duty is at stake.
+  if (has('checker') || has('approver')) {
+    can('reply', 'Finding');
+  }
+  // Attachments: every member reads them; the people of the review add evidence (authors to
+  // their own worksheets), and whoever uploaded a file may remove it while it is not yet record.
+  can('read', 'Attachment');
+  if (has('author')) can('create', 'Attachment', { worksheetAuthorId: userId });
+  if (has('checker') || has('approver')) can('create', 'Attachment');
+  if (has('author') || has('checker') || has('approver')) {
+    can('delete', 'Attachment', { uploadedById: userId });
   }
   // Separation of duties: nobody checks or signs what they authored; the checker of a revision
   // cannot also sign it.

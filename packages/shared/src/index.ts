@@ -17,3 +17,4 @@ export * from './api/review.ts';
 export * from './api/history.ts';
 export * from './api/attachments.ts';
 export * from './api/notifications.ts';
+export * from './revision-diff.ts';

@@ -8,7 +8,14 @@ import type { WorksheetState } from './api/worksheets.ts';
  * `decideTransition` inside the transaction); the web app calls `availableActions` to show
  * only the buttons a person may press, with the reason when one is blocked.
  */
-export const workflowActions = ['submit', 'return', 'accept', 'sign', 'withdraw'] as const;
+export const workflowActions = [
+  'submit',
+  'return',
+  'accept',
+  'sign',
+  'withdraw',
+  'revise',
+] as const;
 export type WorkflowAction = (typeof workflowActions)[number];
 
 /** The worksheet as the guards see it. */
@@ -54,7 +61,11 @@ interface Edge {
   duty: Duty;
 }
 
-/** Every transition; `return` has two edges (the checker from in_check, the approver from checked). */
+/**
+ * Every transition; `return` has two edges (the checker from in_check, the approver from
+ * checked). `revise` reopens a signed worksheet as the next revision: the signed one stays as
+ * it was (signed, later superseded) and the new one starts as a draft.
+ */
 export const transitions: Record<WorkflowAction, readonly Edge[]> = {
   submit: [{ from: ['draft', 'returned'], to: 'in_check', duty: 'author' }],
   return: [
@@ -66,6 +77,7 @@ export const transitions: Record<WorkflowAction, readonly Edge[]> = {
   withdraw: [
     { from: ['draft', 'in_check', 'checked', 'returned'], to: 'withdrawn', duty: 'author' },
   ],
+  revise: [{ from: ['signed_off'], to: 'draft', duty: 'author' }],
 };
 
 const stateWords = (s: WorksheetState) => s.replace('_', ' ');
@@ -160,4 +172,5 @@ export const transitionAuditAction: Record<WorkflowAction, string> = {
   accept: 'worksheet.accepted',
   sign: 'worksheet.signed',
   withdraw: 'worksheet.withdrawn',
+  revise: 'worksheet.revised',
 };

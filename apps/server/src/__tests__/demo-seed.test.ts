@@ -32,6 +32,42 @@ describe('demo data', () => {
     ).toEqual(before);
   });
 
+  it('when loaded, then Quietline has a worksheet in every review state, with findings, replies, signatures and an intact audit chain', async () => {
+    for (const step of demoSteps) await step.load(t.sequelize, t.config);
+    const states = await systemRows<{ state: string }>(
+      t,
+      `SELECT DISTINCT r.state FROM revisions r JOIN organizations o ON o.id = r.org_id
+        WHERE o.slug = 'quietline-analog' ORDER BY 1`,
+    );
+    expect(states.map((r) => r.state)).toEqual([
+      'checked',
+      'draft',
+      'in_check',
+      'returned',
+      'signed_off',
+      'superseded',
+      'withdrawn',
+    ]);
+    const [counts] = await systemRows<Record<string, string>>(
+      t,
+      `SELECT (SELECT count(*) FROM findings WHERE severity = 'major' AND status <> 'closed') AS "openMajor",
+              (SELECT count(*) FROM finding_replies WHERE kind = 'reply') AS replies,
+              (SELECT count(*) FROM signatures) AS signatures,
+              (SELECT count(*) FROM signatures WHERE superseded_at IS NOT NULL) AS superseded`,
+    );
+    expect(counts).toEqual({ openMajor: '1', replies: '1', signatures: '2', superseded: '1' });
+
+    const { agent } = await signIn(t, {
+      email: 'marc.dubois@quietline.example',
+      password: DEMO_PASSWORD,
+    });
+    const orgId = (await agent.get('/api/auth/me')).body.memberships[0].orgId as string;
+    const verify = await agent.get(`/api/orgs/${orgId}/audit/verify`);
+    expect(verify.status).toBe(200);
+    expect(verify.body.ok).toBe(true);
+    expect(verify.body.events).toBeGreaterThan(30);
+  });
+
   it('when a demo person signs in with the demo password, then they see their organizations and roles', async () => {
     for (const step of demoSteps) await step.load(t.sequelize, t.config);
     const tomas = 'tomas.lindqvist@quietline.example';

@@ -11,7 +11,28 @@ export interface ChainedEventContent {
   targetType: string;
   targetId: string | null;
   details: Record<string, unknown>;
+  /** Context added by migration 20261202-02; null on events written before it. */
+  revision?: string | null;
+  summary?: string | null;
+  projectId?: string | null;
+  worksheetId?: string | null;
+  ip?: string | null;
+  userAgent?: string | null;
 }
+
+/**
+ * The context fields enter the hashed JSON only when they hold a value. Events written before
+ * these columns existed have NULL there and were hashed without them, so they still verify;
+ * a value added to such an event later, or changed on a newer one, breaks its hash.
+ */
+const contextFields = [
+  'revision',
+  'summary',
+  'projectId',
+  'worksheetId',
+  'ip',
+  'userAgent',
+] as const;
 
 /** The first event of a chain links to this value. */
 export const GENESIS_HASH = '';
@@ -42,6 +63,7 @@ export function eventHash(event: ChainedEventContent, prevHash: string): string 
     targetType: event.targetType,
     targetId: event.targetId,
     details: event.details,
+    ...Object.fromEntries(contextFields.flatMap((f) => (event[f] == null ? [] : [[f, event[f]]]))),
   });
   return createHash('sha256').update(content).update(prevHash).digest('hex');
 }

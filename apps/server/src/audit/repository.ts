@@ -1,7 +1,6 @@
 import { QueryTypes } from 'sequelize';
 import type { Tx } from '../db/transactions.ts';
-import type { AuditEventAttributes } from '../db/models/audit-event.ts';
-import type { ChainHead } from './hash-chain.ts';
+import type { ChainHead, StoredChainEvent } from './hash-chain.ts';
 
 /** The chain an event belongs to: an organization's id, or `account` for account events. */
 export type ChainKey = string;
@@ -46,34 +45,100 @@ export async function readChainHead(tx: Tx, chain: ChainKey): Promise<ChainHead 
     : null;
 }
 
-export async function insertEvent(
-  tx: Tx,
-  chain: ChainKey,
-  event: AuditEventAttributes,
-): Promise<void> {
-  await tx.models.AuditEvent.create(event, { transaction: tx.transaction });
+const eventColumns = `id, org_id, seq, at, actor_user_id, action, target_type, target_id, details,
+  prev_hash, hash, revision, summary, project_id, worksheet_id, ip, user_agent`;
+
+interface EventRecord {
+  id: string;
+  org_id: string | null;
+  seq: string;
+  at: Date;
+  actor_user_id: string | null;
+  action: string;
+  target_type: string;
+  target_id: string | null;
+  details: Record<string, unknown>;
+  prev_hash: string;
+  hash: string;
+  revision: string | null;
+  summary: string | null;
+  project_id: string | null;
+  worksheet_id: string | null;
+  ip: string | null;
+  user_agent: string | null;
+}
+
+const toStored = (r: EventRecord): StoredChainEvent => ({
+  id: r.id,
+  orgId: r.org_id,
+  seq: Number(r.seq),
+  at: new Date(r.at),
+  actorUserId: r.actor_user_id,
+  action: r.action,
+  targetType: r.target_type,
+  targetId: r.target_id,
+  details: r.details,
+  prevHash: r.prev_hash,
+  hash: r.hash,
+  revision: r.revision,
+  summary: r.summary,
+  projectId: r.project_id,
+  worksheetId: r.worksheet_id,
+  ip: r.ip,
+  userAgent: r.user_agent,
+});
+
+export async function insertEvent(tx: Tx, chain: ChainKey, e: StoredChainEvent): Promise<void> {
+  await tx.sequelize.query(
+    `INSERT INTO audit_events (${eventColumns})
+     VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9::jsonb, $10, $11, $12, $13, $14, $15, $16, $17)`,
+    {
+      bind: [
+        e.id,
+        e.orgId,
+        e.seq,
+        e.at,
+        e.actorUserId,
+        e.action,
+        e.targetType,
+        e.targetId,
+        JSON.stringify(e.details),
+        e.prevHash,
+        e.hash,
+        e.revision ?? null,
+        e.summary ?? null,
+        e.projectId ?? null,
+        e.worksheetId ?? null,
+        e.ip ?? null,
+        e.userAgent ?? null,
+      ],
+      transaction: tx.transaction,
+    },
+  );
   await tx.sequelize.query(
     'UPDATE audit_chain_heads SET last_seq = $2, last_hash = $3, last_event_id = $4 WHERE chain = $1',
-    { bind: [chain, event.seq, event.hash, event.id], transaction: tx.transaction },
+    { bind: [chain, e.seq, e.hash, e.id], transaction: tx.transaction },
   );
 }
 
 /** Every event of one organization's chain, in chain order. */
-export async function chainEvents(tx: Tx, orgId: string): Promise<AuditEventAttributes[]> {
-  const rows = await tx.models.AuditEvent.findAll({
-    where: { orgId },
-    order: [['seq', 'ASC']],
-    transaction: tx.transaction,
-  });
-  return rows.map((r) => r.get({ plain: true }));
+export async function chainEvents(tx: Tx, orgId: string): Promise<StoredChainEvent[]> {
+  const rows = await tx.sequelize.query<EventRecord>(
+    `SELECT ${eventColumns} FROM audit_events WHERE org_id = $1 ORDER BY seq`,
+    { bind: [orgId], transaction: tx.transaction, type: QueryTypes.SELECT },
+  );
+  return rows.map(toStored);
 }
 
 export interface AuditListFilter {
   action?: string;
   actorUserId?: string;
+  projectId?: string;
+  worksheetId?: string;
   from?: Date;
   to?: Date;
-  limit: number;
+  /** Null: every matching event (the CSV export). */
+  limit: number | null;
   offset: number;
 }
 
@@ -86,6 +151,12 @@ export interface AuditListRow {
   target_type: string;
   target_id: string | null;
   details: Record<string, unknown>;
+  revision: string | null;
+  summary: string | null;
+  project_id: string | null;
+  worksheet_id: string | null;
+  ip: string | null;
+  user_agent: string | null;
   total: string;
 }
 
@@ -100,6 +171,7 @@ export async function listOrgEvents(
 ): Promise<AuditListRow[]> {
   return tx.sequelize.query<AuditListRow>(
     `SELECT e.id, e.at, e.actor_user_id, u.name AS actor_name, e.action, e.target_type, e.target_id, e.details,
+            e.revision, e.summary, e.project_id, e.worksheet_id, e.ip, e.user_agent,
             count(*) OVER () AS total
        FROM audit_events e
        LEFT JOIN users u ON u.id = e.actor_user_id
@@ -110,6 +182,8 @@ export async function listOrgEvents(
         AND ($3::uuid IS NULL OR e.actor_user_id = $3)
         AND ($4::timestamptz IS NULL OR e.at >= $4)
         AND ($5::timestamptz IS NULL OR e.at <= $5)
+        AND ($8::uuid IS NULL OR e.project_id = $8)
+        AND ($9::uuid IS NULL OR e.worksheet_id = $9)
       ORDER BY e.at DESC, e.seq DESC
       LIMIT $6 OFFSET $7`,
     {
@@ -121,6 +195,8 @@ export async function listOrgEvents(
         filter.to ?? null,
         filter.limit,
         filter.offset,
+        filter.projectId ?? null,
+        filter.worksheetId ?? null,
       ],
       transaction: tx.transaction,
       type: QueryTypes.SELECT,

@@ -4,6 +4,8 @@ import { AppError } from '../errors/app-error.ts';
 import { inTransaction } from '../db/transactions.ts';
 import { appendAuditEvent } from '../audit/audit-log.ts';
 import { passwordResetMail } from '../mail/messages.ts';
+import { enqueueAccountMail } from '../outbox/outbox.ts';
+import { dispatchSoon } from '../outbox/dispatcher.ts';
 import type { Services } from '../services.ts';
 import {
   closeOpenResets,
@@ -21,17 +23,19 @@ export const PASSWORD_RESET_TTL_MS = 60 * 60 * 1000;
 
 /**
  * Starts a reset for the address when it has an enabled account; does nothing visible
- * otherwise. The e-mail is sent after the answer's work is done and is not awaited, so the
- * answer's timing and content do not tell whether the address has an account.
+ * otherwise. The e-mail is written to the outbox with the token (a message with no
+ * organization: the account is a person's, not an organization's) and sent after the commit
+ * without being awaited, so the answer's timing and content do not tell whether the address
+ * has an account.
  */
 export async function requestPasswordReset(
   svc: Services,
   input: z.output<typeof passwordResetRequestSchema>,
 ): Promise<void> {
   const { token, tokenHash } = newLinkToken();
-  const user = await inTransaction(svc.sequelize, 'system', async (tx) => {
+  const outboxIds = await inTransaction(svc.sequelize, 'system', async (tx) => {
     const found = await findUserByEmail(tx, input.email);
-    if (!found || found.disabled) return null;
+    if (!found || found.disabled) return [];
     await createPasswordReset(tx, {
       userId: found.id,
       tokenHash,
@@ -43,15 +47,15 @@ export async function requestPasswordReset(
       targetType: 'user',
       targetId: found.id,
     });
-    return found;
+    const link = `${svc.config.appUrl}/reset-password?token=${encodeURIComponent(token)}`;
+    return enqueueAccountMail(tx, [
+      {
+        kind: 'account.password-reset',
+        ...passwordResetMail({ to: found.email, name: found.name, link }),
+      },
+    ]);
   });
-  if (!user) return;
-  const link = `${svc.config.appUrl}/reset-password?token=${encodeURIComponent(token)}`;
-  svc.mailer
-    .send(passwordResetMail({ to: user.email, name: user.name, link }))
-    .catch((err: unknown) => {
-      svc.logger.error({ err }, 'password reset e-mail could not be sent');
-    });
+  dispatchSoon(svc, outboxIds);
 }
 
 /** Sets the new password with a valid, unused, unexpired token; voids the person's other reset links and ends all their sessions. */

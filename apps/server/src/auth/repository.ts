@@ -73,3 +73,36 @@ export async function closeOpenResets(tx: Tx, userId: string, at: Date): Promise
     { where: { userId, usedAt: { [Op.is]: null } }, transaction: tx.transaction },
   );
 }
+
+export interface MailPreferenceRow {
+  delivery: 'immediate' | 'daily-digest';
+  digest_hour_utc: number;
+}
+
+export async function findMailPreference(
+  tx: Tx,
+  userId: string,
+  options: { lock?: boolean } = {},
+): Promise<MailPreferenceRow | null> {
+  const [row] = await tx.sequelize.query<MailPreferenceRow>(
+    `SELECT delivery, digest_hour_utc FROM mail_preferences WHERE user_id = $1${options.lock ? ' FOR UPDATE' : ''}`,
+    { bind: [userId], transaction: tx.transaction, type: QueryTypes.SELECT },
+  );
+  return row ?? null;
+}
+
+export async function saveMailPreference(
+  tx: Tx,
+  userId: string,
+  preference: MailPreferenceRow,
+): Promise<void> {
+  await tx.sequelize.query(
+    `INSERT INTO mail_preferences (user_id, delivery, digest_hour_utc) VALUES ($1, $2, $3)
+     ON CONFLICT (user_id) DO UPDATE
+       SET delivery = EXCLUDED.delivery, digest_hour_utc = EXCLUDED.digest_hour_utc, updated_at = now()`,
+    {
+      bind: [userId, preference.delivery, preference.digest_hour_utc],
+      transaction: tx.transaction,
+    },
+  );
+}

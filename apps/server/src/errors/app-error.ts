@@ -11,6 +11,7 @@ const statusByCode = {
   unprocessable: 422,
   'too-many-requests': 429,
   'payload-too-large': 413,
+  'unsupported-media-type': 415,
   unavailable: 503,
   internal: 500,
   // Specific codes the web app and scripts act on (docs/api.md).

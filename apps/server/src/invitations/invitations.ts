@@ -2,6 +2,8 @@ import type { z } from 'zod';
 import type { createInvitationRequestSchema, Invitation } from '@biasproof/shared';
 import { AppError } from '../errors/app-error.ts';
 import { invitationMail } from '../mail/messages.ts';
+import { enqueueMail } from '../outbox/outbox.ts';
+import { dispatchSoon } from '../outbox/dispatcher.ts';
 import { newLinkToken } from '../auth/tokens.ts';
 import { findAccount } from '../auth/accounts.ts';
 import { findOrganization } from '../orgs/repository.ts';
@@ -32,39 +34,29 @@ export async function listInvitations(
 }
 
 /**
- * Sends the invitation e-mail inside the transaction that stores the token: when the mail
- * server refuses it, nothing is stored and the admin is told to try again.
+ * Writes the invitation e-mail to the outbox in the transaction that stores the token, so the
+ * message exists exactly when the invitation does; it is sent right after the commit
+ * (`dispatchSoon`) and retried by the dispatcher while the mail server is away.
  */
-async function sendInvitation(
+async function queueInvitation(
   svc: Services,
   tx: OrgTx,
   row: InvitationRow,
   token: string,
-): Promise<void> {
+  kind: 'invitation.created' | 'invitation.resent',
+): Promise<string[]> {
   // One connection per transaction: queries run one after another.
   const org = await findOrganization(tx, tx.orgId);
   const inviter = await findAccount(tx, row.invitedByUserId);
-  try {
-    await svc.mailer.send(
-      invitationMail({
-        to: row.email,
-        orgName: org?.name ?? 'an organization',
-        invitedByName: inviter?.name ?? 'An admin',
-        roles: row.roles,
-        link: `${svc.config.appUrl}/invitations/${token}`,
-        expiresAt: row.expiresAt,
-      }),
-    );
-  } catch (err) {
-    throw new AppError(
-      'unavailable',
-      'The invitation e-mail could not be sent; nothing was saved. Try again shortly.',
-      undefined,
-      {
-        cause: err,
-      },
-    );
-  }
+  const mail = invitationMail({
+    to: row.email,
+    orgName: org?.name ?? 'an organization',
+    invitedByName: inviter?.name ?? 'An admin',
+    roles: row.roles,
+    link: `${svc.config.appUrl}/invitations/${token}`,
+    expiresAt: row.expiresAt,
+  });
+  return enqueueMail(tx, [{ kind, ...mail }]);
 }
 
 async function readBack(tx: OrgTx, id: string): Promise<Invitation> {
@@ -78,7 +70,7 @@ export async function inviteMember(
   org: OrgContext,
   input: z.output<typeof createInvitationRequestSchema>,
 ): Promise<Invitation> {
-  return org.write(async (tx) => {
+  const { invitation, outboxIds } = await org.write(async (tx) => {
     if (await isMemberByEmail(tx, input.email)) {
       throw new AppError(
         'already-member',
@@ -105,9 +97,11 @@ export async function inviteMember(
       targetId: row.id,
       details: { email: input.email, roles: input.roles },
     });
-    await sendInvitation(svc, tx, row, token);
-    return readBack(tx, row.id);
+    const outboxIds = await queueInvitation(svc, tx, row, token, 'invitation.created');
+    return { invitation: await readBack(tx, row.id), outboxIds };
   });
+  dispatchSoon(svc, outboxIds);
+  return invitation;
 }
 
 /** A new token (the old link stops working), a new 7-day expiry and a new e-mail. */
@@ -116,7 +110,7 @@ export async function resendInvitation(
   org: OrgContext,
   id: string,
 ): Promise<Invitation> {
-  return org.write(async (tx) => {
+  const { invitation, outboxIds } = await org.write(async (tx) => {
     const row = await findInvitationForUpdate(tx, id);
     if (!row) throw noSuchInvitation();
     const status = statusOf(row);
@@ -134,9 +128,11 @@ export async function resendInvitation(
       targetId: row.id,
       details: { email: row.email },
     });
-    await sendInvitation(svc, tx, row, token);
-    return readBack(tx, row.id);
+    const outboxIds = await queueInvitation(svc, tx, row, token, 'invitation.resent');
+    return { invitation: await readBack(tx, row.id), outboxIds };
   });
+  dispatchSoon(svc, outboxIds);
+  return invitation;
 }
 
 export async function revokeInvitation(org: OrgContext, id: string): Promise<void> {

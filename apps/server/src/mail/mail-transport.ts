@@ -14,6 +14,10 @@ export function createMailTransport(smtp: SmtpSettings): Transporter {
     secure: false,
     // maildev offers no TLS; a real relay is configured with its own settings in production.
     ignoreTLS: smtp.host === '127.0.0.1' || smtp.host === 'localhost',
+    // Bounded waits keep one send well inside the outbox's claim lease (outbox/dispatcher.ts);
+    // nodemailer's own socket default is ten minutes.
     connectionTimeout: 5_000,
+    greetingTimeout: 10_000,
+    socketTimeout: 60_000,
   });
 }

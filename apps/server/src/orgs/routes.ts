@@ -7,7 +7,8 @@ import { auditRoutes } from '../audit/routes.ts';
 import { projectRoutes } from '../projects/routes.ts';
 import { worksheetRoutes } from '../worksheets/routes.ts';
 import { modelLibraryRoutes } from '../models/routes.ts';
-import { findingRoutes, worksheetReviewRoutes } from '../review/routes.ts';
+import { findingRoutes, queueRoutes, worksheetReviewRoutes } from '../review/routes.ts';
+import { attachmentRoutes, worksheetAttachmentRoutes } from '../attachments/routes.ts';
 import { authorize, orgContextOf, orgScope } from './org-scope.ts';
 import { getOrganization } from './organizations.ts';
 
@@ -26,7 +27,10 @@ export function orgRoutes(svc: Services): Router {
   router.use('/audit', auditRoutes());
   router.use('/projects', projectRoutes());
   router.use('/worksheets', worksheetReviewRoutes(svc), worksheetRoutes());
-  router.use('/findings', findingRoutes());
+  router.use('/findings', findingRoutes(svc));
+  router.use('/queue', queueRoutes());
   router.use('/models', modelLibraryRoutes());
+  router.use('/worksheets', worksheetAttachmentRoutes());
+  router.use('/attachments', attachmentRoutes());
   return router;
 }

@@ -2,7 +2,8 @@ import { availableActions, type AvailableActionsResponse } from '@biasproof/shar
 import type { OrgContext } from '../orgs/org-scope.ts';
 import { findWorksheet } from '../worksheets/repository.ts';
 import { noSuchWorksheet } from '../worksheets/worksheets.ts';
-import { countOpenMajorFindings, signatureMeanings } from './repository.ts';
+import { countOpenMajorFindings } from './repository.ts';
+import { signatureMeanings } from './signature-repository.ts';
 import { workflowView } from './transitions.ts';
 
 /** `GET …/worksheets/:id/actions`: every workflow action for the caller, allowed or blocked with the reason. */

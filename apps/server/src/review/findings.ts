@@ -2,9 +2,11 @@ import type { z } from 'zod';
 import { subject, type createFindingRequestSchema, type Finding } from '@biasproof/shared';
 import { AppError } from '../errors/app-error.ts';
 import type { OrgContext, OrgTx } from '../orgs/org-scope.ts';
+import { enqueueMail } from '../outbox/outbox.ts';
 import { findWorksheet } from '../worksheets/repository.ts';
 import { lockWorksheet } from '../worksheets/guards.ts';
 import { noSuchWorksheet } from '../worksheets/worksheets.ts';
+import { findingMails, mailFinding } from './finding-notifications.ts';
 import {
   insertFinding,
   listFindings,
@@ -28,9 +30,10 @@ export async function getFindings(org: OrgContext, worksheetId: string) {
   });
 }
 
-/** A checker raises a finding on the current revision of a worksheet in check or checked. */
+/** A checker raises a finding on the current revision of a worksheet in check or checked; its author is told. */
 export async function raiseFinding(
   org: OrgContext,
+  appUrl: string,
   worksheetId: string,
   input: z.output<typeof createFindingRequestSchema>,
 ): Promise<Finding> {
@@ -70,7 +73,21 @@ export async function raiseFinding(
         severity: input.severity,
       },
     });
-    return (await readFinding(tx, id))!;
+    const finding = (await readFinding(tx, id))!;
+    await enqueueMail(
+      tx,
+      await findingMails(
+        tx,
+        { kind: 'raised' },
+        {
+          finding: { ...finding, raisedById: org.actor.userId },
+          worksheet,
+          actorId: org.actor.userId,
+          appUrl,
+        },
+      ),
+    );
+    return finding;
   });
 }
 
@@ -96,9 +113,13 @@ const steps: Record<
   },
 };
 
-/** answer (author: open → answered), close (checker: open|answered → closed), reopen (checker: → open). */
+/**
+ * answer (author: open → answered; the checker who raised it is told), close (checker:
+ * open|answered → closed), reopen (checker: → open).
+ */
 export async function moveFinding(
   org: OrgContext,
+  appUrl: string,
   findingId: string,
   step: FindingStep,
   text: string,
@@ -136,6 +157,21 @@ export async function moveFinding(
         to: rule.to,
       },
     });
+    if (step === 'answer') {
+      await enqueueMail(
+        tx,
+        await findingMails(
+          tx,
+          { kind: 'answered', text },
+          {
+            finding: mailFinding(finding),
+            worksheet,
+            actorId: org.actor.userId,
+            appUrl,
+          },
+        ),
+      );
+    }
     return (await readFinding(tx, findingId))!;
   });
 }

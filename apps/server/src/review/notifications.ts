@@ -2,6 +2,7 @@ import type { WorkflowAction } from '@biasproof/shared';
 import type { OrgTx } from '../orgs/org-scope.ts';
 import type { WorksheetRow } from '../db/models/worksheet.ts';
 import type { OutboxEntry } from '../outbox/outbox.ts';
+import { composeMail } from '../mail/compose.ts';
 import { listFindings } from './repository.ts';
 
 interface Person {
@@ -38,7 +39,7 @@ export async function transitionMails(
     kind: string,
     to: Person | null,
     subject: string,
-    lines: string[],
+    paragraphs: (string | string[])[],
   ): OutboxEntry[] =>
     to
       ? [
@@ -46,7 +47,13 @@ export async function transitionMails(
             kind,
             to: to.email,
             subject,
-            text: [`Hello ${to.name},`, '', ...lines, '', link].join('\n'),
+            link,
+            ...composeMail({
+              greeting: `Hello ${to.name},`,
+              paragraphs,
+              link: { url: link, label: 'Open the worksheet' },
+              footer: `Sent by Biasproof for ${org?.name ?? 'your organization'}.`,
+            }),
           },
         ]
       : [];
@@ -61,7 +68,7 @@ export async function transitionMails(
       return mail('worksheet.returned', author, `Returned: ${title}`, [
         `${s.actorName} returned ${title} to you.`,
         ...(open.length
-          ? ['', 'Open findings:', ...open.map((f) => `- [${f.severity}] ${f.path}: ${f.text}`)]
+          ? ['Open findings:', open.map((f) => `[${f.severity}] ${f.path}: ${f.text}`)]
           : []),
       ]);
     }
@@ -81,6 +88,7 @@ export async function transitionMails(
       ];
     }
     case 'withdraw':
+    case 'revise':
       return [];
   }
 }

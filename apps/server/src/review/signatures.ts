@@ -3,7 +3,7 @@ import type { PasswordHasher } from '../auth/passwords.ts';
 import type { RevisionRow } from '../db/models/revision.ts';
 import { AppError } from '../errors/app-error.ts';
 import { findUserById } from '../auth/repository.ts';
-import { insertSignature, listSignatures, signatureMeanings } from './repository.ts';
+import { insertSignature, listSignatures, signatureMeanings } from './signature-repository.ts';
 import { assertWorksheetExists } from './findings.ts';
 
 /** Thrown inside the transition's transaction, so that it rolls back before the refusal is audited. */

@@ -13,12 +13,13 @@ import { enqueueMail } from '../outbox/outbox.ts';
 import { transitionMails } from './notifications.ts';
 import type { WorksheetRow } from '../db/models/worksheet.ts';
 import type { RevisionRow } from '../db/models/revision.ts';
-import { assertVersion, lockWorksheet } from '../worksheets/guards.ts';
+import { assertVersion, lockWorksheet, startNextRevision } from '../worksheets/guards.ts';
 import { findCurrentRevisionForUpdate } from '../worksheets/repository.ts';
 import { applyDraft } from '../worksheets/draft-change.ts';
 import { readWorksheet, noSuchWorksheet, type WorksheetBody } from '../worksheets/worksheets.ts';
 import { countOpenMajorFindings } from './repository.ts';
 import { signRevision, SignaturePasswordRefused } from './signatures.ts';
+import { freezeRevision, supersedeEarlierRevisions } from './revision-repository.ts';
 
 type TransitionInput = z.output<typeof transitionRequestSchema>;
 
@@ -42,7 +43,7 @@ function blockedError(decision: Extract<TransitionDecision, { allowed: false }>)
 async function freezeForCheck(tx: OrgTx, revision: RevisionRow): Promise<void> {
   if (revision.frozen) return;
   await applyDraft(tx, revision, {});
-  await revision.update({ frozen: true }, { transaction: tx.transaction });
+  await freezeRevision(tx, revision.id);
 }
 
 /**
@@ -77,6 +78,7 @@ export async function transitionWorksheet(
         version: worksheet.version,
         ...(input.comment ? { comment: input.comment } : {}),
       };
+      let summary: string | undefined;
       let checkedBy = worksheet.checkedByUserId;
       if (input.action === 'submit') {
         await freezeForCheck(tx, revision);
@@ -95,6 +97,14 @@ export async function transitionWorksheet(
             password: input.password ?? '',
           }),
         );
+        const superseded = await supersedeEarlierRevisions(tx, id, revision.letter);
+        if (superseded.length) details.supersededRevisions = superseded;
+      } else if (input.action === 'revise') {
+        // The signed revision stays as it was; the next letter is a draft copy of it.
+        const next = await startNextRevision(tx, worksheet, revision, org.actor.userId);
+        Object.assign(details, { revision: next.letter, startedFrom: revision.letter });
+        summary = `Started "${worksheet.title}" revision ${next.letter} from signed revision ${revision.letter}`;
+        checkedBy = null;
       }
       await worksheet.update(
         { state: decision.to, checkedByUserId: checkedBy, version: worksheet.version + 1 },
@@ -105,6 +115,7 @@ export async function transitionWorksheet(
         targetType: 'worksheet',
         targetId: id,
         details,
+        ...(summary ? { summary } : {}),
       });
       const actor = await tx.models.User.findByPk(org.actor.userId, {
         transaction: tx.transaction,

@@ -235,3 +235,38 @@ export async function insertFindingRow(
   );
   return row!.id;
 }
+
+/** Bytes the attachment sniffer types as PNG: the 8-byte signature and a 1×1 IHDR chunk. */
+export const fixturePng = (): Buffer =>
+  Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c489', 'hex');
+
+/** An attachment inserted directly (no API, no audit event) on revision A of a worksheet. */
+export async function insertAttachmentRow(
+  t: TestApp,
+  a: {
+    orgId: string;
+    worksheetId: string;
+    uploadedById: string;
+    findingId?: string | null;
+    filename?: string;
+  },
+): Promise<string> {
+  const content = fixturePng();
+  const [row] = await systemRows<{ id: string }>(
+    t,
+    `INSERT INTO attachments (org_id, worksheet_id, finding_id, revision_letter, filename, type,
+                              content_type, size, sha256, content, uploaded_by_user_id)
+     VALUES ($1, $2, $3, 'A', $4, 'png', 'image/png', $5, encode(sha256($6::bytea), 'hex'), $6, $7)
+     RETURNING id`,
+    [
+      a.orgId,
+      a.worksheetId,
+      a.findingId ?? null,
+      a.filename ?? 'fixture-scope.png',
+      content.length,
+      content,
+      a.uploadedById,
+    ],
+  );
+  return row!.id;
+}

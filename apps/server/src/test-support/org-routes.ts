@@ -4,10 +4,13 @@
 import { randomUUID } from 'node:crypto';
 import type { Action, SubjectName } from '@biasproof/shared';
 import type { Role } from '@biasproof/shared';
+import type { Test } from 'supertest';
 import { inTransaction } from '../db/transactions.ts';
 import { newLinkToken } from '../auth/tokens.ts';
 import {
   createOrgWithMembers,
+  fixturePng,
+  insertAttachmentRow,
   insertFindingRow,
   insertModelRow,
   insertProjectRow,
@@ -50,6 +53,10 @@ export interface OrgWorld extends OrgFixture {
   /** A closed finding on the worksheet in check (for a checker to reopen). */
   closedFindingId: string;
   modelId: string;
+  /** A PNG the actor attached to their draft worksheet (revision A, not frozen). */
+  attachmentId: string;
+  /** Authored by the actor, signed off (revision A frozen), checked by the keeper: to revise. */
+  signedWorksheetId: string;
 }
 
 export async function createOrgWorld(t: TestApp, actorRoles: Role[]): Promise<OrgWorld> {
@@ -111,6 +118,21 @@ export async function createOrgWorld(t: TestApp, actorRoles: Role[]): Promise<Or
   const reviewFindingId = await finding(inCheckWorksheetId);
   const closedFindingId = await finding(inCheckWorksheetId, 'closed');
   const modelId = await insertModelRow(t, fx.org.id, keeperId);
+  const attachmentId = await insertAttachmentRow(t, {
+    orgId: fx.org.id,
+    worksheetId,
+    uploadedById: actorId,
+  });
+  const signedWorksheetId = await insertWorksheetRow(t, {
+    orgId: fx.org.id,
+    projectId,
+    authorId: actorId,
+    checkerId: keeperId,
+    checkedById: keeperId,
+    approverId: fx.people.approver!.id,
+    state: 'signed_off',
+    frozen: true,
+  });
   return {
     ...fx,
     actorId,
@@ -126,6 +148,8 @@ export async function createOrgWorld(t: TestApp, actorRoles: Role[]): Promise<Or
     reviewFindingId,
     closedFindingId,
     modelId,
+    attachmentId,
+    signedWorksheetId,
   };
 }
 
@@ -144,6 +168,8 @@ export function malformedIds(w: OrgWorld): OrgWorld {
     reviewFindingId: '-1',
     closedFindingId: 'null',
     modelId: 'model;1',
+    attachmentId: 'scope.png',
+    signedWorksheetId: "signed'",
   };
 }
 
@@ -184,6 +210,20 @@ export interface OrgRouteCase {
   success: number;
   /** True when the path names an object inside the organization (then ids from another organization must 404 too). */
   namesObject: boolean;
+  /** A multipart upload instead of a JSON body: the `file` part and any other fields. */
+  upload?: (w: OrgWorld) => { filename: string; content: Buffer; fields?: Record<string, string> };
+  /** A read that is itself audited (downloading an attachment), so the audit chain grows. */
+  auditedRead?: boolean;
+}
+
+/** Sends the route's body, JSON or multipart, on a request built by a suite. */
+export function withRouteBody(req: Test, route: OrgRouteCase, ids: OrgWorld): Test {
+  if (route.upload) {
+    const { filename, content, fields = {} } = route.upload(ids);
+    for (const [name, value] of Object.entries(fields)) void req.field(name, value);
+    return req.attach('file', content, filename);
+  }
+  return route.body ? req.send(route.body(ids)) : req;
 }
 
 export const orgRoutes: OrgRouteCase[] = [
@@ -280,6 +320,16 @@ export const orgRoutes: OrgRouteCase[] = [
     path: () => '/audit/verify',
     success: 200,
     namesObject: false,
+  },
+  {
+    name: 'GET /audit/export.csv',
+    method: 'get',
+    action: 'export',
+    subject: 'AuditLog',
+    path: () => '/audit/export.csv',
+    success: 200,
+    namesObject: false,
+    auditedRead: true,
   },
   {
     name: 'GET /projects',
@@ -552,6 +602,142 @@ export const orgRoutes: OrgRouteCase[] = [
     success: 204,
     namesObject: true,
   },
+  {
+    name: 'POST /worksheets/:id/attachments',
+    method: 'post',
+    action: 'create',
+    subject: 'Attachment',
+    objectFields: (w) => ({ worksheetAuthorId: w.actorId }),
+    path: (w) => `/worksheets/${w.worksheetId}/attachments`,
+    upload: () => ({ filename: 'matrix-scope.png', content: fixturePng() }),
+    success: 201,
+    namesObject: true,
+  },
+  {
+    name: 'GET /worksheets/:id/attachments',
+    method: 'get',
+    action: 'read',
+    subject: 'Attachment',
+    path: (w) => `/worksheets/${w.worksheetId}/attachments`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'GET /attachments/:attachmentId',
+    method: 'get',
+    action: 'read',
+    subject: 'Attachment',
+    path: (w) => `/attachments/${w.attachmentId}`,
+    success: 200,
+    namesObject: true,
+    auditedRead: true,
+  },
+  {
+    name: 'DELETE /attachments/:attachmentId',
+    method: 'delete',
+    action: 'delete',
+    subject: 'Attachment',
+    objectFields: (w) => ({ worksheetAuthorId: w.actorId, uploadedById: w.actorId }),
+    path: (w) => `/attachments/${w.attachmentId}`,
+    success: 204,
+    namesObject: true,
+  },
+  {
+    name: 'POST /findings/:findingId/replies',
+    method: 'post',
+    action: 'reply',
+    subject: 'Finding',
+    objectFields: (w) => ({ worksheetAuthorId: w.actorId }),
+    path: (w) => `/findings/${w.findingId}/replies`,
+    body: () => ({ text: 'Replied by the matrix' }),
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'POST /worksheets/:id/transitions (revise)',
+    method: 'post',
+    action: 'submit',
+    subject: 'Worksheet',
+    objectFields: (w) => ({ authorId: w.actorId }),
+    path: (w) => `/worksheets/${w.signedWorksheetId}/transitions`,
+    body: () => ({ action: 'revise', version: 1 }),
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'GET /worksheets/:id/revisions',
+    method: 'get',
+    action: 'read',
+    subject: 'Revision',
+    path: (w) => `/worksheets/${w.signedWorksheetId}/revisions`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'GET /worksheets/:id/revisions/:letter',
+    method: 'get',
+    action: 'read',
+    subject: 'Revision',
+    path: (w) => `/worksheets/${w.signedWorksheetId}/revisions/A`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'GET /worksheets/:id/diff',
+    method: 'get',
+    action: 'read',
+    subject: 'Revision',
+    path: (w) => `/worksheets/${w.worksheetId}/diff?from=A&to=A`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'GET /queue',
+    method: 'get',
+    action: 'read',
+    subject: 'Worksheet',
+    path: () => '/queue',
+    success: 200,
+    namesObject: false,
+  },
+  {
+    name: 'GET /worksheets/export.csv',
+    method: 'get',
+    action: 'read',
+    subject: 'Worksheet',
+    path: () => '/worksheets/export.csv?sort=title',
+    success: 200,
+    namesObject: false,
+  },
+  {
+    name: 'GET /worksheets/:id/revisions/:letter/report.pdf',
+    method: 'get',
+    action: 'read',
+    subject: 'Revision',
+    path: (w) => `/worksheets/${w.worksheetId}/revisions/A/report.pdf`,
+    success: 200,
+    namesObject: true,
+    auditedRead: true,
+  },
+  {
+    name: 'GET /worksheets/:id/revisions/:letter/record.zip',
+    method: 'get',
+    action: 'read',
+    subject: 'Revision',
+    path: (w) => `/worksheets/${w.worksheetId}/revisions/A/record.zip`,
+    success: 200,
+    namesObject: true,
+    auditedRead: true,
+  },
+  {
+    name: 'GET /worksheets/:id/revisions/:letter/results.csv',
+    method: 'get',
+    action: 'read',
+    subject: 'Revision',
+    path: (w) => `/worksheets/${w.worksheetId}/revisions/A/results.csv?table=bias`,
+    success: 200,
+    namesObject: true,
+  },
 ];
 
 /** Everything an org-scoped route could change, to compare before and after a refused call. */
@@ -608,6 +794,12 @@ export async function orgSnapshot(t: TestApp, orgId: string) {
     models: await systemRows(
       t,
       'SELECT id, name, kind, params, ratings, notes, updated_at FROM model_library_entries WHERE org_id = $1 ORDER BY id',
+      [orgId],
+    ),
+    attachments: await systemRows(
+      t,
+      `SELECT id, worksheet_id, finding_id, revision_letter, filename, size, sha256
+         FROM attachments WHERE org_id = $1 ORDER BY id`,
       [orgId],
     ),
     auditHead: await systemRows(

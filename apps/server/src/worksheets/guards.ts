@@ -84,7 +84,11 @@ export async function lockEditableRevision(
   return revision;
 }
 
-async function startNextRevision(
+/**
+ * The next letter as an unfrozen copy of `frozen`, made the worksheet's current revision: after
+ * a return (the author's first edit) and when a signed worksheet is revised.
+ */
+export async function startNextRevision(
   tx: OrgTx,
   worksheet: WorksheetRow,
   frozen: RevisionRow,

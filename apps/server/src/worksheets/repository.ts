@@ -126,6 +126,22 @@ export async function listWorksheets(
   return { items: rows.map(toListItem), total: Number(count?.n ?? 0) };
 }
 
+/**
+ * List items under a fixed condition of the caller's (with bind parameters from `$2`; `$1` is
+ * the organization), for views such as the review queue.
+ */
+export async function queryWorksheetItems(
+  tx: OrgTx,
+  q: { where: string; bind: unknown[]; orderBy: string; limit: number },
+): Promise<WorksheetListItem[]> {
+  const rows = await tx.sequelize.query<WorksheetRecord>(
+    `${worksheetSelect} WHERE w.org_id = $1 AND (${q.where}) ORDER BY ${q.orderBy}, w.id
+      LIMIT ${Math.trunc(q.limit)}`,
+    { bind: [tx.orgId, ...q.bind], transaction: tx.transaction, type: QueryTypes.SELECT },
+  );
+  return rows.map(toListItem);
+}
+
 export async function readWorksheetItem(tx: OrgTx, id: string): Promise<WorksheetListItem | null> {
   const [row] = await tx.sequelize.query<WorksheetRecord>(
     `${worksheetSelect} WHERE w.org_id = $1 AND w.id = $2`,
@@ -142,6 +158,9 @@ export interface RevisionRecord {
   engine_version: string;
   content_hash: string;
   frozen: boolean;
+  /** The revision's own workflow state (migration 20261202-01). */
+  state: WorksheetState;
+  submitted_at: Date | null;
   created_at: Date;
   created_by_user_id: string;
   created_by_name: string;
@@ -154,7 +173,7 @@ export async function readRevision(
 ): Promise<RevisionRecord | null> {
   const [row] = await tx.sequelize.query<RevisionRecord>(
     `SELECT r.letter, r.circuit, r.settings, r.results, r.engine_version, r.content_hash, r.frozen,
-            r.created_at, r.created_by_user_id, u.name AS created_by_name
+            r.state, r.submitted_at, r.created_at, r.created_by_user_id, u.name AS created_by_name
        FROM revisions r JOIN users u ON u.id = r.created_by_user_id
       WHERE r.org_id = $1 AND r.worksheet_id = $2 AND r.letter = $3`,
     { bind: [tx.orgId, worksheetId, letter], transaction: tx.transaction, type: QueryTypes.SELECT },

@@ -17,6 +17,7 @@ import {
   listWorksheets as listWorksheetRows,
   readRevision,
   readWorksheetItem,
+  type RevisionRecord,
 } from './repository.ts';
 
 /** A worksheet as sent (results encoded, see canonical-json.ts). */
@@ -40,19 +41,21 @@ export async function readWorksheet(tx: OrgTx, id: string): Promise<WorksheetBod
   const item = await readWorksheetItem(tx, id);
   const revision = item ? await readRevision(tx, id, item.revision) : null;
   if (!item || !revision) throw noSuchWorksheet();
+  return { ...item, currentRevision: revisionBody(revision) };
+}
+
+/** A stored revision as the API sends it (results encoded). */
+export function revisionBody(revision: RevisionRecord): WorksheetBody['currentRevision'] {
   return {
-    ...item,
-    currentRevision: {
-      letter: revision.letter,
-      circuit: revision.circuit as WorksheetBody['currentRevision']['circuit'],
-      settings: revision.settings as WorksheetBody['currentRevision']['settings'],
-      results: revision.results,
-      engineVersion: revision.engine_version,
-      contentHash: revision.content_hash,
-      frozen: revision.frozen,
-      createdAt: new Date(revision.created_at).toISOString(),
-      createdBy: { id: revision.created_by_user_id, name: revision.created_by_name },
-    },
+    letter: revision.letter,
+    circuit: revision.circuit as WorksheetBody['currentRevision']['circuit'],
+    settings: revision.settings as WorksheetBody['currentRevision']['settings'],
+    results: revision.results,
+    engineVersion: revision.engine_version,
+    contentHash: revision.content_hash,
+    frozen: revision.frozen,
+    createdAt: new Date(revision.created_at).toISOString(),
+    createdBy: { id: revision.created_by_user_id, name: revision.created_by_name },
   };
 }
 

@@ -1,4 +1,5 @@
 import type { RouteObject } from 'react-router-dom';
+import { PageLoading } from '@/components/ui/page-loading.tsx';
 import { AppShell } from '@/app/layout/app-shell.tsx';
 import { HomePage } from '@/app/routes/home-page.tsx';
 import { NotFoundPage } from '@/app/routes/not-found-page.tsx';
@@ -37,7 +38,26 @@ export const routes: RouteObject[] = [
               { index: true, element: <MyQueuePage /> },
               { path: 'members', element: <MembersPage /> },
               ...projectRoutes,
-              ...worksheetRoutes,
+              ...worksheetRoutes({
+                // The review rides along with the worksheet page's chunk.
+                loadSlots: async () =>
+                  (await import('@/app/routes/worksheet-review.tsx')).WorksheetReview,
+              }),
+              {
+                path: 'worksheets/:worksheetId/history',
+                HydrateFallback: PageLoading,
+                lazy: async () => ({
+                  Component: (await import('@/app/routes/worksheet-history-page.tsx'))
+                    .WorksheetHistoryPage,
+                }),
+              },
+              {
+                path: 'audit',
+                HydrateFallback: PageLoading,
+                lazy: async () => ({
+                  Component: (await import('@/app/routes/audit-route.tsx')).AuditRoute,
+                }),
+              },
             ],
           },
         ],

@@ -5,6 +5,7 @@ import type { DeviceSmallSignal } from '../linearize.ts';
 import type { LoadLineResult } from '../load-line.ts';
 import type { SignalSizeResult } from '../signal-size.ts';
 import type { Phasor } from '../small-signal.ts';
+import type { WorksheetVariationResults } from '../variation/worksheet-variation.ts';
 
 /**
  * What a worksheet computation answers, as plain data: the browser preview shows it and the
@@ -54,6 +55,8 @@ export interface SolvedWorksheet {
   signalSize: Outcome<SignalSizeFigures> | Missing;
   /** One picture per diode and per BJT, in circuit order. */
   loadLines: { device: string; result: Outcome<LoadLineResult> }[];
+  /** Limits, hand checks, stress, corners, temperatures…; only when the settings have a variation section. */
+  variation?: WorksheetVariationResults;
 }
 
 export type WorksheetResults =

@@ -7,6 +7,7 @@ import { isEngineError } from '../errors.ts';
 import { loadLine } from '../load-line.ts';
 import { checkSignalSize } from '../signal-size.ts';
 import { linearizeCircuit, smallSignalAt } from '../small-signal.ts';
+import { computeVariation } from '../variation/worksheet-variation.ts';
 import type {
   ComputeError,
   Missing,
@@ -65,7 +66,25 @@ export function computeWorksheet(draft: WorksheetDraft): WorksheetResults {
       result: attempt(() => loadLine(circuit, { device: el.name, temperature })),
     }));
 
-  return { status: 'solved', bias: bias.value, comparison, devices, ...signal, loadLines };
+  const solved: SolvedWorksheet = {
+    status: 'solved',
+    bias: bias.value,
+    comparison,
+    devices,
+    ...signal,
+    loadLines,
+  };
+  // Only with a variation section, so that every other worksheet keeps its results (and hash).
+  if (settings.variation) {
+    const smallSignal = signal.smallSignal.ok ? signal.smallSignal.value : undefined;
+    solved.variation = computeVariation({
+      circuit,
+      settings,
+      variation: settings.variation,
+      source: { bias: bias.value, smallSignal },
+    });
+  }
+  return solved;
 }
 
 export function toComputeError(e: unknown): ComputeError {

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { acSweepSchema } from '../circuit.ts';
+import { worksheetVariationSchema } from '../variation/worksheet-spec.ts';
 
 /**
  * Analysis settings of a worksheet: which large-signal law the diodes follow, the temperature,
@@ -45,6 +46,12 @@ export const analysisSettingsSchema = z.object({
     .positive('the error limit must be greater than 0 %')
     .max(100, 'the error limit must be at most 100 %')
     .default(10),
+  /**
+   * Tolerances, temperatures, limits, hand checks, ratings and the Monte Carlo run
+   * (variation/worksheet-spec.ts). Optional: settings saved without it parse unchanged, and a
+   * worksheet without it computes exactly the results it always did.
+   */
+  variation: worksheetVariationSchema.optional(),
 });
 
 export type AnalysisSettings = z.infer<typeof analysisSettingsSchema>;

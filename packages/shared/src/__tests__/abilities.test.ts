@@ -66,4 +66,17 @@ describe('ability rules', () => {
     expect(checker.can('close', own)).toBe(false);
     expect(checker.can('answer', own)).toBe(false);
   });
+
+  it.each([
+    [['author'], 'own', true],
+    [['author'], 'theirs', false],
+    [['checker'], 'theirs', true],
+    [['approver'], 'theirs', true],
+    [['manager'], 'theirs', false],
+    [['admin'], 'own', false],
+  ] as const)('replies: %j on %s worksheet’s finding → %s', (roles, whose, allowed) => {
+    const ability = defineAbilityFor({ userId: me, roles });
+    const finding = subject('Finding', { worksheetAuthorId: whose === 'own' ? me : other });
+    expect(ability.can('reply', finding)).toBe(allowed);
+  });
 });

@@ -41,6 +41,7 @@ describe('workflow state machine', () => {
     ['withdraw', 'in_check', ann, 'withdrawn'],
     ['withdraw', 'checked', ann, 'withdrawn'],
     ['withdraw', 'returned', ann, 'withdrawn'],
+    ['revise', 'signed_off', ann, 'draft'],
   ] as const)('when %s from %s by %s, then it leads to %s', (action, from, who, to) => {
     const d = decideTransition(action, sheet(from), { userId: who, roles: rolesOf[who]! }, 0);
     expect(d).toEqual({ action, allowed: true, from, to });
@@ -58,6 +59,9 @@ describe('workflow state machine', () => {
     ['withdraw', 'signed_off', ann],
     ['withdraw', 'withdrawn', ann],
     ['withdraw', 'superseded', ann],
+    ['revise', 'draft', ann],
+    ['revise', 'checked', ann],
+    ['revise', 'returned', ann],
   ] as const)('when %s from %s, then it is an invalid transition', (action, from, who) => {
     const d = decideTransition(action, sheet(from), { userId: who, roles: rolesOf[who]! }, 0);
     expect(d).toMatchObject({ allowed: false, code: 'invalid-transition' });
@@ -74,6 +78,8 @@ describe('workflow state machine', () => {
     ['return', 'checked', kim, ['checker'], 'Only an approver may do this.'],
     ['sign', 'checked', kim, ['checker'], 'Only an approver may do this.'],
     ['sign', 'checked', 'u-abby', ['approver'], 'Only the assigned approver may do this.'],
+    ['revise', 'signed_off', abe, ['approver'], 'Only the author of this worksheet may do this.'],
+    ['revise', 'signed_off', 'u-bob', ['author'], 'Only the author of this worksheet may do this.'],
   ] as const)(
     'when %s from %s by %s (%j), then it is forbidden: %s',
     (action, from, who, roles, reason) => {

@@ -7,7 +7,8 @@ export const MAX_ATTACHMENT_BYTES = 20 * 1024 * 1024;
 /**
  * What an attachment may be, decided from its content (never its name or the browser's type):
  * PDF (`%PDF-`), PNG (its 8-byte signature), JPEG (`FF D8 FF`), and text: CSV or a SPICE deck
- * (UTF-8 without NUL bytes; a deck when a line starts with `.end`/`.op`/an element card, else CSV).
+ * (UTF-8 without NUL bytes, not starting with `<`; a deck when the engine's parser reads an
+ * element from it or a line starts with `.end`/`.op`, else CSV when its delimiters are consistent).
  */
 export const attachmentTypes = ['pdf', 'png', 'jpeg', 'csv', 'deck'] as const;
 export type AttachmentType = (typeof attachmentTypes)[number];

@@ -74,6 +74,12 @@ describe('audit log', () => {
       action: 'member.roles-changed',
       targetType: 'user',
       targetId: fx.people.ned!.id,
+      revision: null,
+      summary: 'Changed the roles of Ned Fixture from author, checker to checker',
+      projectId: null,
+      worksheetId: null,
+      ip: expect.stringMatching(/127\.0\.0\.1$/),
+      userAgent: null,
       details: { rolesBefore: ['author', 'checker'], roles: ['checker'] },
     });
   });

@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import {
   canonicalJson,
@@ -93,4 +94,61 @@ describe('audit hash chain', () => {
       firstBadEventId: 'e3',
     });
   });
+
+  it('when an event was hashed before the context columns existed, then it still verifies with those fields null', () => {
+    // The hash as the code before migration 20261202-02 computed it, written out again here.
+    const legacy = {
+      id: 'old',
+      orgId: 'org',
+      seq: 1,
+      at: new Date(Date.UTC(2026, 11, 1, 8)),
+      actorUserId: 'u1',
+      action: 'member.added',
+      targetType: 'user',
+      targetId: 'u2',
+      details: { roles: ['author'] },
+    };
+    const oldHash = createHash('sha256')
+      .update(canonicalJson({ ...legacy, at: legacy.at.toISOString() }))
+      .update(GENESIS_HASH)
+      .digest('hex');
+    const stored: StoredChainEvent = {
+      ...legacy,
+      revision: null,
+      summary: null,
+      projectId: null,
+      worksheetId: null,
+      ip: null,
+      userAgent: null,
+      prevHash: GENESIS_HASH,
+      hash: oldHash,
+    };
+
+    expect(verifyChain([stored], { lastSeq: 1, lastHash: oldHash, lastEventId: 'old' })).toEqual({
+      ok: true,
+      events: 1,
+    });
+    // A value put into a context field of such an event afterwards breaks its hash.
+    expect(eventHash({ ...stored, summary: 'Added nobody' }, GENESIS_HASH)).not.toBe(oldHash);
+  });
+
+  it.each(['revision', 'summary', 'projectId', 'worksheetId', 'ip', 'userAgent'] as const)(
+    'when the context field %s of an event changes, then its hash changes',
+    (field) => {
+      const [first] = chain(1);
+      const withContext = {
+        ...first!,
+        revision: 'A',
+        summary: 'Submitted "Mic preamp" revision A for check',
+        projectId: 'p1',
+        worksheetId: 'w1',
+        ip: '192.0.2.10',
+        userAgent: 'Bench browser 1.0',
+      };
+      const hash = eventHash(withContext, GENESIS_HASH);
+
+      expect(eventHash({ ...withContext, [field]: 'other' }, GENESIS_HASH)).not.toBe(hash);
+      expect(eventHash({ ...withContext, [field]: null }, GENESIS_HASH)).not.toBe(hash);
+    },
+  );
 });

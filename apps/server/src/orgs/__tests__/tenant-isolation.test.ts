@@ -10,6 +10,7 @@ import {
   orgRoutes,
   orgSnapshot,
   type OrgRouteCase,
+  withRouteBody,
   type OrgWorld,
 } from '../../test-support/org-routes.ts';
 import { inTransaction } from '../../db/transactions.ts';
@@ -33,7 +34,7 @@ describe('tenant isolation', () => {
       'x-csrf-token',
       actor.csrf,
     );
-    return route.body ? req.send(route.body(ids)) : req;
+    return withRouteBody(req, route, ids);
   };
 
   async function expectUnchanged(

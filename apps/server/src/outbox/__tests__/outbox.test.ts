@@ -1,144 +1,112 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp } from '../../test-support/test-app.ts';
+import { QueryTypes } from 'sequelize';
+import { inTransaction } from '../../db/transactions.ts';
 import { systemRows, TEST_PASSWORD } from '../../test-support/fixtures.ts';
-import { listEmails, waitForEmailWhere } from '../../test-support/maildev.ts';
-import { createTeam, newProject, newWorksheet, type Team } from '../../test-support/team.ts';
-import { dividerDraft } from '../../worksheets/__tests__/worksheet-drafts.ts';
+import { createTeam, newProject, type Team } from '../../test-support/team.ts';
 import type { Mailer } from '../../mail/send-mail.ts';
 import { dispatchOutbox, retryDelaySeconds } from '../dispatcher.ts';
-
-interface OutboxRow {
-  id: string;
-  kind: string;
-  to_address: string;
-  subject: string;
-  text_body: string;
-  attempts: number;
-  sent_at: Date | null;
-  next_attempt_at: Date;
-  last_error: string | null;
-}
+import {
+  createOutboxWorld,
+  outboxRows,
+  step,
+  submittedWorksheet,
+  type OutboxRow,
+  type OutboxWorld,
+} from './outbox-world.ts';
 
 describe('e-mail through the outbox', () => {
-  const t = createTestApp();
+  let w: OutboxWorld;
   let team: Team;
   let projectId: string;
   beforeAll(async () => {
-    team = await createTeam(t);
+    w = await createOutboxWorld();
+    team = await createTeam(w.t);
     projectId = (await newProject(team.as.ann)).id;
   });
-  afterAll(() => t.close());
+  afterAll(() => w.close());
 
-  const outbox = () =>
-    systemRows<OutboxRow>(
-      t,
-      'SELECT * FROM outbox_messages WHERE org_id = $1 ORDER BY created_at, id',
-      [team.org.id],
+  /** The transition messages about one worksheet (finding messages have tests of their own). */
+  const rowsOf = async (worksheetId: string) =>
+    (await outboxRows(w.t, "org_id = $1 AND kind LIKE 'worksheet.%'", [team.org.id])).filter((r) =>
+      r.text_body.includes(worksheetId),
     );
   const smtpDown: Mailer = {
     send: () => Promise.reject(new Error('connect ECONNREFUSED 127.0.0.1:1')),
   };
 
-  async function submitted() {
-    const ws = await newWorksheet(team.as.ann, projectId, {
-      ...dividerDraft(),
-      title: `Mail ${Date.now()}`,
-    });
-    await team.as.ann.patch(`/worksheets/${ws.id}`, {
-      version: 1,
-      checkerId: team.people.kim!.id,
-      approverId: team.people.abe!.id,
-    });
-    const res = await team.as.ann.post(`/worksheets/${ws.id}/transitions`, {
-      action: 'submit',
-      version: 2,
-    });
-    expect(res.status).toBe(200);
-    return ws;
-  }
-
-  it('when transitions run, then each writes its messages for whoever acts next, and the dispatcher sends each exactly once with the worksheet link', async () => {
-    const ws = await submitted();
-    const kim = team.as.kim;
-    await kim.post(`/worksheets/${ws.id}/findings`, {
+  it('when transitions run, then each writes its messages for whoever acts next, and the dispatcher sends each exactly once, in text and HTML, with the worksheet link', async () => {
+    const ws = await submittedWorksheet(team, projectId, `Mail <1> & "more"`);
+    await team.as.kim.post(`/worksheets/${ws.id}/findings`, {
       path: 'nodes.out',
       severity: 'major',
       text: 'Too low.',
     });
-    await kim.post(`/worksheets/${ws.id}/transitions`, { action: 'return', version: 3 });
-    const rows = (await outbox()).filter((r) => r.text_body.includes(ws.id));
-    expect(rows.map((r) => [r.kind, r.to_address])).toEqual([
-      ['worksheet.submitted', team.people.kim!.email],
-      ['worksheet.returned', team.people.ann!.email],
+    await step(team.as.kim, ws.id, { action: 'return', version: 3 });
+    const rows = await rowsOf(ws.id);
+    const link = `http://biasproof.test.example/o/${team.org.slug}/worksheets/${ws.id}`;
+    expect(rows.map((r) => [r.kind, r.to_address, r.link])).toEqual([
+      ['worksheet.submitted', team.people.kim!.email, link],
+      ['worksheet.returned', team.people.ann!.email, link],
     ]);
     expect(rows[1]!.text_body).toContain('- [major] nodes.out: Too low.');
+    expect(rows[1]!.html_body).toContain('<li>[major] nodes.out: Too low.</li>');
 
-    expect(await dispatchOutbox(t.sequelize, t.mailer, { orgId: team.org.id })).toMatchObject({
-      failed: 0,
-    });
-    expect(await dispatchOutbox(t.sequelize, t.mailer, { orgId: team.org.id })).toEqual({
-      sent: 0,
-      failed: 0,
-    });
-    const link = `http://biasproof.test.example/o/${team.org.slug}/worksheets/${ws.id}`;
-    const mail = await waitForEmailWhere(team.people.kim!.email, (m) =>
-      (m.text ?? '').includes(link),
+    expect(await dispatchOutbox(w.t.sequelize, w.t.mailer)).toMatchObject({ failed: 0 });
+    expect(await dispatchOutbox(w.t.sequelize, w.t.mailer)).toEqual({ sent: 0, failed: 0 });
+
+    const mails = (await w.maildev.list()).filter(
+      (m) => (m.text ?? '').includes(link) && !/^finding/i.test(m.subject),
     );
-    expect(mail.subject).toBe(`To check: "${ws.title}" revision A`);
-    const toAnn = await waitForEmailWhere(team.people.ann!.email, (m) =>
-      m.subject.startsWith('Returned:'),
-    );
-    expect(toAnn.text).toContain(link);
-    const sent = (await outbox()).filter((r) => r.text_body.includes(ws.id));
+    expect(mails.map((m) => [m.to[0]?.address, m.subject])).toEqual([
+      [team.people.kim!.email, `To check: "${ws.title}" revision A`],
+      [team.people.ann!.email, `Returned: "${ws.title}" revision A`],
+    ]);
+    const toKim = mails[0]!;
+    expect(toKim.text).toContain(`Hello Kim Fixture,`);
+    expect(toKim.text).toContain(`Open the worksheet: ${link}`);
+    // The title is escaped in HTML, and the link is an anchor.
+    expect(toKim.html).toContain('Mail &lt;1&gt; &amp; &quot;more&quot;');
+    expect(toKim.html).toMatch(new RegExp(`<a [^>]*href="${link}"`));
+    const sent = await rowsOf(ws.id);
     expect(sent.every((r) => r.sent_at !== null && r.attempts === 1)).toBe(true);
+    expect(sent.every((r) => r.claimed_until === null)).toBe(true);
   });
 
   it('when SMTP is down, then attempts are counted and retried later with backoff, and the message is delivered once when it is back', async () => {
-    const ws = await submitted();
-    const [row] = (await outbox()).filter((r) => r.text_body.includes(ws.id) && r.sent_at === null);
-    expect(row).toBeDefined();
+    await dispatchOutbox(w.t.sequelize, w.t.mailer);
+    const ws = await submittedWorksheet(team, projectId, `Backoff ${Date.now()}`);
+    const [row] = await rowsOf(ws.id);
 
-    const down = await dispatchOutbox(t.sequelize, smtpDown, { orgId: team.org.id });
-    expect(down.failed).toBeGreaterThanOrEqual(1);
-    const [failed] = await systemRows<OutboxRow>(t, 'SELECT * FROM outbox_messages WHERE id = $1', [
-      row!.id,
-    ]);
+    const down = await dispatchOutbox(w.t.sequelize, smtpDown);
+    expect(down).toEqual({ sent: 0, failed: 1 });
+    const [failed] = await outboxRows(w.t, 'id = $1', [row!.id]);
     expect(failed).toMatchObject({
       attempts: 1,
       sent_at: null,
+      claimed_until: null,
       last_error: 'connect ECONNREFUSED 127.0.0.1:1',
     });
     expect(new Date(failed!.next_attempt_at).getTime()).toBeGreaterThan(Date.now() + 2000);
     // Not due yet: a pass now leaves it alone.
-    expect(await dispatchOutbox(t.sequelize, t.mailer, { orgId: team.org.id })).toEqual({
-      sent: 0,
-      failed: 0,
-    });
+    expect(await dispatchOutbox(w.t.sequelize, w.t.mailer)).toEqual({ sent: 0, failed: 0 });
 
-    await systemRows(
-      t,
-      'UPDATE outbox_messages SET next_attempt_at = now() WHERE id = $1 RETURNING id',
-      [row!.id],
-    );
+    const later = () => new Date(Date.now() + retryDelaySeconds(1) * 1000 + 1000);
     const [a, b] = await Promise.all([
-      dispatchOutbox(t.sequelize, t.mailer, { orgId: team.org.id }),
-      dispatchOutbox(t.sequelize, t.mailer, { orgId: team.org.id }),
+      dispatchOutbox(w.t.sequelize, w.t.mailer, { now: later }),
+      dispatchOutbox(w.t.sequelize, w.t.mailer, { now: later }),
     ]);
     expect(a.sent + b.sent).toBe(1);
-    await waitForEmailWhere(team.people.kim!.email, (m) => (m.text ?? '').includes(ws.id));
-    const copies = (await listEmails()).filter((m) => (m.text ?? '').includes(ws.id));
+    const copies = (await w.maildev.list()).filter((m) => (m.text ?? '').includes(ws.id));
     expect(copies).toHaveLength(1);
-    const [done] = await systemRows<OutboxRow>(t, 'SELECT * FROM outbox_messages WHERE id = $1', [
-      row!.id,
-    ]);
+    const [done] = await outboxRows(w.t, 'id = $1', [row!.id]);
     expect(done).toMatchObject({ attempts: 2, last_error: null });
     expect(done!.sent_at).not.toBeNull();
   });
 
   it('when a transition is refused, then it writes no message', async () => {
-    const ws = await submitted();
-    await team.as.kim.post(`/worksheets/${ws.id}/transitions`, { action: 'accept', version: 3 });
-    const before = (await outbox()).length;
+    const ws = await submittedWorksheet(team, projectId, `Refused ${Date.now()}`);
+    await step(team.as.kim, ws.id, { action: 'accept', version: 3 });
+    const before = (await outboxRows(w.t)).length;
     const res = await team.as.abe.post(`/worksheets/${ws.id}/transitions`, {
       action: 'sign',
       version: 4,
@@ -146,7 +114,42 @@ describe('e-mail through the outbox', () => {
       password: `${TEST_PASSWORD}-wrong`,
     });
     expect(res.status).toBe(403);
-    expect((await outbox()).length).toBe(before);
+    expect((await outboxRows(w.t)).length).toBe(before);
+  });
+
+  it('when an organization transaction looks at the outbox, then it sees its own messages only, never account messages', async () => {
+    await systemRows(
+      w.t,
+      `INSERT INTO outbox_messages (org_id, kind, to_address, subject, text_body)
+       VALUES (NULL, 'account.password-reset', 'ola@fixture.example', 'Reset', 'x') RETURNING id`,
+    );
+    const seen = await inTransaction(w.t.sequelize, { orgId: team.org.id }, (tx) =>
+      tx.sequelize.query<OutboxRow>('SELECT org_id FROM outbox_messages', {
+        transaction: tx.transaction,
+        type: QueryTypes.SELECT,
+      }),
+    );
+    expect(seen.length).toBeGreaterThan(0);
+    expect(seen.every((r) => r.org_id === team.org.id)).toBe(true);
+    await expect(
+      inTransaction(w.t.sequelize, { orgId: team.org.id }, (tx) =>
+        tx.sequelize.query(
+          `INSERT INTO outbox_messages (org_id, kind, to_address, subject, text_body)
+           VALUES (NULL, 'account.password-reset', 'ola@fixture.example', 'Reset', 'x')`,
+          { transaction: tx.transaction },
+        ),
+      ),
+    ).rejects.toThrow(/row-level security/);
+  });
+
+  it('when an organization message has no organization, then the database refuses it', async () => {
+    await expect(
+      systemRows(
+        w.t,
+        `INSERT INTO outbox_messages (org_id, kind, to_address, subject, text_body)
+         VALUES (NULL, 'worksheet.submitted', 'ola@fixture.example', 'To check', 'x') RETURNING id`,
+      ),
+    ).rejects.toThrow(/outbox_messages_org_or_personal/);
   });
 
   it.each([

@@ -44,6 +44,7 @@ describe('worksheet storage', () => {
         home.assignedWorksheetId,
         home.inCheckWorksheetId,
         home.checkedWorksheetId,
+        home.signedWorksheetId,
       ].sort(),
     );
     expect(new Set(seen.revisions.map((r) => r.orgId))).toEqual(new Set([home.org.id]));

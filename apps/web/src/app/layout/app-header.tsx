@@ -1,4 +1,5 @@
 import { Link, NavLink, useMatch } from 'react-router-dom';
+import { defineAbilityFor } from '@biasproof/shared';
 import { appConfig } from '@/config/app-config.ts';
 import { SignOutButton } from '@/features/auth/components/sign-out-button.tsx';
 import { HealthStatus } from '@/features/health/components/health-status.tsx';
@@ -13,7 +14,13 @@ const sectionLink = `${headerLink} aria-[current=page]:underline`;
 export function AppHeader() {
   const me = useMe().data ?? null;
   const orgSlug = useMatch('/o/:orgSlug/*')?.params.orgSlug;
-  const inKnownOrg = me?.memberships.some((m) => m.orgSlug === orgSlug) ?? false;
+  const membership = me?.memberships.find((m) => m.orgSlug === orgSlug);
+  const inKnownOrg = membership !== undefined;
+  // The header sits above the organization's pages, so it asks the shared rules itself.
+  const mayReadAudit =
+    me && membership
+      ? defineAbilityFor({ userId: me.user.id, roles: membership.roles }).can('read', 'AuditLog')
+      : false;
 
   return (
     <header className="bg-ink-900 text-paper">
@@ -40,6 +47,11 @@ export function AppHeader() {
               <NavLink to={orgPath(orgSlug, 'members')} className={sectionLink}>
                 Members
               </NavLink>
+              {mayReadAudit ? (
+                <NavLink to={orgPath(orgSlug, 'audit')} className={sectionLink}>
+                  Audit
+                </NavLink>
+              ) : null}
             </nav>
           ) : null}
         </div>

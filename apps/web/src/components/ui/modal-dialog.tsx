@@ -8,19 +8,35 @@ interface ModalDialogProps {
   actions: ReactNode;
   /** Escape calls this; without it Escape does nothing (the person must choose). */
   onDismiss?: () => void;
+  /** `dialog` for a form to fill in; `alertdialog` (default) for a question to answer. */
+  role?: 'dialog' | 'alertdialog';
 }
+
+/** What Tab may reach inside the dialog. */
+const focusable =
+  'a[href], button:not([disabled]), input:not([disabled]), select:not([disabled]), textarea:not([disabled]), [tabindex]:not([tabindex="-1"])';
 
 /**
  * A modal question with buttons of the caller's choosing (ConfirmDialog is the two-button
- * case). Tab stays inside, and focus goes back where it was when the dialog closes.
+ * case), or a small form. Tab stays inside, and focus goes back where it was when the dialog
+ * closes. Focus starts on the element marked `data-autofocus`, else on the first action.
  */
-export function ModalDialog({ title, children, actions, onDismiss }: ModalDialogProps) {
+export function ModalDialog({
+  title,
+  children,
+  actions,
+  onDismiss,
+  role = 'alertdialog',
+}: ModalDialogProps) {
   const id = useId();
   const panel = useRef<HTMLDivElement>(null);
 
   useEffect(() => {
     const opener = document.activeElement instanceof HTMLElement ? document.activeElement : null;
-    panel.current?.querySelector<HTMLElement>('[data-actions] button')?.focus();
+    const start =
+      panel.current?.querySelector<HTMLElement>('[data-autofocus]') ??
+      panel.current?.querySelector<HTMLElement>('[data-actions] button');
+    start?.focus();
     return () => {
       if (opener?.isConnected) opener.focus();
       else document.getElementById('main')?.focus();
@@ -34,9 +50,9 @@ export function ModalDialog({ title, children, actions, onDismiss }: ModalDialog
       return;
     }
     if (event.key !== 'Tab' || !panel.current) return;
-    const buttons = [...panel.current.querySelectorAll<HTMLElement>('button:not([disabled])')];
-    const first = buttons[0];
-    const last = buttons[buttons.length - 1];
+    const stops = [...panel.current.querySelectorAll<HTMLElement>(focusable)];
+    const first = stops[0];
+    const last = stops[stops.length - 1];
     if (event.shiftKey && document.activeElement === first) {
       event.preventDefault();
       last?.focus();
@@ -50,12 +66,12 @@ export function ModalDialog({ title, children, actions, onDismiss }: ModalDialog
     <div className="fixed inset-0 z-20 flex items-center justify-center bg-ink-900/50 p-4">
       <div
         ref={panel}
-        role="alertdialog"
+        role={role}
         aria-modal="true"
         aria-labelledby={`${id}-title`}
         aria-describedby={`${id}-body`}
         onKeyDown={onKeyDown}
-        className="w-full max-w-lg rounded-lg bg-surface p-6 shadow-lg"
+        className="max-h-[90vh] w-full max-w-lg overflow-y-auto rounded-lg bg-surface p-6 shadow-lg"
       >
         <h2 id={`${id}-title`} className="text-lg font-bold text-ink-900">
           {title}

@@ -1,12 +1,18 @@
 import type { RouteObject } from 'react-router-dom';
 import { PageLoading } from '@/components/ui/page-loading.tsx';
+import type { WorksheetSlotsComponent } from '@/features/worksheets/components/page/worksheet-slots.ts';
+
+export interface WorksheetRouteOptions {
+  /** Loads what the app plugs into the saved-worksheet page; fetched with the page's chunk. */
+  loadSlots?: () => Promise<WorksheetSlotsComponent>;
+}
 
 /**
  * The worksheet routes, to be mounted under `/o/:orgSlug/`. Each page loads as its own chunk
  * when first visited (the editor and engine with the worksheet pages); the plots load later
  * still, with their view.
  */
-export const worksheetRoutes: RouteObject[] = [
+export const worksheetRoutes = ({ loadSlots }: WorksheetRouteOptions = {}): RouteObject[] => [
   {
     path: 'worksheets',
     HydrateFallback: PageLoading,
@@ -38,9 +44,11 @@ export const worksheetRoutes: RouteObject[] = [
     path: 'worksheets/:worksheetId',
     HydrateFallback: PageLoading,
     lazy: async () => {
-      const { WorksheetPage } =
-        await import('@/features/worksheets/components/page/worksheet-page.tsx');
-      return { Component: WorksheetPage };
+      const [{ WorksheetPage }, slots] = await Promise.all([
+        import('@/features/worksheets/components/page/worksheet-page.tsx'),
+        loadSlots?.(),
+      ]);
+      return { Component: () => <WorksheetPage slots={slots} /> };
     },
   },
 ];

@@ -3,10 +3,11 @@ import { RoleChips } from '@/components/ui/role-list.tsx';
 import { TextLink } from '@/components/ui/text-link.tsx';
 import { ChangePasswordForm } from '@/features/profile/components/change-password-form.tsx';
 import { NameForm } from '@/features/profile/components/name-form.tsx';
+import { NotificationPreferencesSection } from '@/features/profile/components/notification-preferences-form.tsx';
 import { orgPath } from '@/lib/current-org.tsx';
 import { useSignedInMe } from '@/lib/signed-in.tsx';
 
-/** `/profile`: the person's name, password and organizations. */
+/** `/profile`: the person's name, password, e-mail notifications and organizations. */
 export function ProfilePage() {
   const me = useSignedInMe();
   return (
@@ -29,6 +30,13 @@ export function ProfilePage() {
           Password
         </h2>
         <ChangePasswordForm email={me.user.email} />
+      </Card>
+
+      <Card aria-labelledby="notifications-heading">
+        <h2 id="notifications-heading" className="mb-4 text-lg font-semibold text-ink-900">
+          E-mail notifications
+        </h2>
+        <NotificationPreferencesSection />
       </Card>
 
       <Card aria-labelledby="orgs-heading">

@@ -15,6 +15,10 @@ import { HistoryBar } from '@/features/worksheets/components/editor/history-bar.
 import { ModelsSection } from '@/features/worksheets/components/editor/models-section.tsx';
 import { SettingsPanel } from '@/features/worksheets/components/editor/settings-panel.tsx';
 import {
+  ResultMarksProvider,
+  type ResultMarks,
+} from '@/features/worksheets/components/results/result-marks.tsx';
+import {
   ResultsPanel,
   type StoredFrom,
 } from '@/features/worksheets/components/results/results-panel.tsx';
@@ -57,6 +61,7 @@ export interface StoredResults {
 }
 
 const ignoreEdit = () => undefined;
+const noMarks: ResultMarks = {};
 
 /**
  * The author's worksheet: circuit editor and settings on one side, results computed as they type
@@ -70,6 +75,8 @@ export function WorksheetWorkspace({
   stored,
   onDraftChange,
   library,
+  sidePanel,
+  resultMarks,
 }: {
   initialDraft: () => WorksheetDraft;
   /** The page's heading, given the current draft. */
@@ -81,6 +88,10 @@ export function WorksheetWorkspace({
   onDraftChange?: (draft: WorksheetDraft) => void;
   /** The organization's model library, offered in the models panel. */
   library?: readonly DeviceModel[] | undefined;
+  /** Shown beside the results (e.g. the review panel). */
+  sidePanel?: ReactNode;
+  /** Markers and activation laid over the result numbers. */
+  resultMarks?: ResultMarks | undefined;
 }) {
   const history = useDraftHistory(initialDraft);
   const draft = history.draft;
@@ -151,16 +162,20 @@ export function WorksheetWorkspace({
             <DeckTools draft={draft} edit={edit} readOnly={readOnly} />
           </Panel>
         </div>
-        <div className="min-w-0 xl:sticky xl:top-4">
+        {/* A side panel makes the column taller than the screen: then it scrolls with the page. */}
+        <div className={`flex min-w-0 flex-col gap-6 ${sidePanel ? '' : 'xl:sticky xl:top-4'}`}>
           <Panel title="Results">
-            <ResultsPanel
-              live={live}
-              origin={showStored ? 'stored' : 'local-preview'}
-              storedFrom={showStored ? stored.from : undefined}
-              pendingNote={pendingNote}
-              onGoToElement={focusElementRow}
-            />
+            <ResultMarksProvider marks={resultMarks ?? noMarks}>
+              <ResultsPanel
+                live={live}
+                origin={showStored ? 'stored' : 'local-preview'}
+                storedFrom={showStored ? stored.from : undefined}
+                pendingNote={pendingNote}
+                onGoToElement={focusElementRow}
+              />
+            </ResultMarksProvider>
           </Panel>
+          {sidePanel}
         </div>
       </div>
     </div>

@@ -6,6 +6,11 @@ import { useModelLibrary } from '@/features/worksheets/api/list-models.ts';
 import { ConflictDialog } from '@/features/worksheets/components/page/conflict-dialog.tsx';
 import { LeaveGuard } from '@/features/worksheets/components/page/leave-guard.tsx';
 import { SaveIndicator } from '@/features/worksheets/components/page/save-indicator.tsx';
+import type {
+  WorksheetSlotContext,
+  WorksheetSlots,
+  WorksheetSlotsComponent,
+} from '@/features/worksheets/components/page/worksheet-slots.ts';
 import { StateChip, stateLabel } from '@/features/worksheets/components/state-chip.tsx';
 import {
   WorksheetWorkspace,
@@ -32,10 +37,13 @@ function readOnlyReason(worksheet: Worksheet, mayUpdate: boolean): string | null
 export function StoredWorksheet({
   worksheet: initial,
   onReload,
+  slots: Slots,
 }: {
   worksheet: Worksheet;
   /** Reads the worksheet again and starts this page afresh from it. */
   onReload: () => Promise<void>;
+  /** What the app plugs into the page (see worksheet-slots.ts). */
+  slots?: WorksheetSlotsComponent | undefined;
 }) {
   const { membership, user } = useCurrentOrg();
   const ability = useAppAbility();
@@ -64,7 +72,13 @@ export function StoredWorksheet({
     [key, revision],
   );
 
-  return (
+  const unsavedEdits = autosave.status !== 'saved';
+  const context = useMemo<WorksheetSlotContext>(
+    () => ({ worksheet, unsavedEdits, reload: onReload }),
+    [worksheet, unsavedEdits, onReload],
+  );
+
+  const page = (slots: WorksheetSlots) => (
     <>
       <title>{`${worksheet.title} · ${membership.orgName} · Biasproof`}</title>
       <LeaveGuard when={autosave.status !== 'saved'} />
@@ -81,6 +95,8 @@ export function StoredWorksheet({
         stored={stored}
         library={libraryModels}
         onDraftChange={autosave.onDraft}
+        sidePanel={slots.sidePanel}
+        resultMarks={{ annotations: slots.numberAnnotations, onActivate: slots.onNumberActivate }}
         heading={() => (
           <div className="flex flex-col gap-2">
             <p className="text-sm font-semibold text-ink-600">
@@ -114,9 +130,11 @@ export function StoredWorksheet({
                 Read only. {readOnly}
               </p>
             ) : null}
+            {slots.actionBar}
           </div>
         )}
       />
     </>
   );
+  return Slots ? <Slots context={context}>{page}</Slots> : page({});
 }

@@ -4,11 +4,15 @@ import { ErrorMessage, LoadingMessage } from '@/components/ui/message.tsx';
 import { TextLink } from '@/components/ui/text-link.tsx';
 import { useWorksheet } from '@/features/worksheets/api/get-worksheet.ts';
 import { StoredWorksheet } from '@/features/worksheets/components/page/stored-worksheet.tsx';
+import type { WorksheetSlotsComponent } from '@/features/worksheets/components/page/worksheet-slots.ts';
 import { ApiError } from '@/lib/api-client.ts';
 import { orgPath, useCurrentOrg } from '@/lib/current-org.tsx';
 
-/** `/o/:orgSlug/worksheets/:worksheetId`: one saved worksheet, in the editor. */
-export function WorksheetPage() {
+/**
+ * `/o/:orgSlug/worksheets/:worksheetId`: one saved worksheet, in the editor, with whatever the
+ * app plugs in through `slots` (the review workflow).
+ */
+export function WorksheetPage({ slots }: { slots?: WorksheetSlotsComponent | undefined }) {
   const { worksheetId = '' } = useParams();
   const { membership } = useCurrentOrg();
   const worksheet = useWorksheet(membership.orgId, worksheetId);
@@ -51,6 +55,7 @@ export function WorksheetPage() {
       key={`${worksheet.data.id}-${generation}`}
       worksheet={worksheet.data}
       onReload={reload}
+      slots={slots}
     />
   );
 }

@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
 import type { ResultCell } from '@/features/worksheets/components/results/result-csv.ts';
+import { MarkedResult } from '@/features/worksheets/components/results/result-marks.tsx';
 import {
   formatPercentDifference,
   formatResult,
@@ -24,13 +25,13 @@ export function Chip({
   title?: string;
 }) {
   return (
-    <span
-      data-result-path={path}
+    <MarkedResult
+      path={path}
       title={title}
       className={`inline-block rounded-full border px-2 py-0.5 text-xs font-semibold ${chipTones[tone]}`}
     >
       {children}
-    </span>
+    </MarkedResult>
   );
 }
 
@@ -50,13 +51,13 @@ export function ResultNumber({
 }) {
   const text = percent ? formatPercentDifference(value) : formatResult(value, unit, digits);
   return (
-    <span
-      data-result-path={path}
+    <MarkedResult
+      path={path}
       title={value === null ? undefined : `${value} ${unit}`.trim()}
       className="tabular-nums"
     >
       {text}
-    </span>
+    </MarkedResult>
   );
 }
 

@@ -1,0 +1,85 @@
+import { Router, type RequestHandler, type Response } from 'express';
+import { idSchema, revisionLetterSchema } from '@biasproof/shared';
+import type { Services } from '../services.ts';
+import { requireUser, signedInUser } from '../auth/require-user.ts';
+import { authorize, orgContextOf, orgScope } from '../orgs/org-scope.ts';
+import { noSuchRevision } from './record-data.ts';
+import { downloadPackage, downloadReport, downloadResultsCsv, type Download } from './downloads.ts';
+import { resultsCsvQuerySchema } from './csv/results-csv.ts';
+import { worksheetExportQuerySchema, worksheetsCsv } from './csv/worksheets-csv.ts';
+
+/** A malformed worksheet id or revision letter names nothing: 404, like another organization's. */
+function revisionOf(params: Record<string, unknown>): { id: string; letter: string } {
+  const id = idSchema.safeParse(params.id);
+  const letter = revisionLetterSchema.safeParse(params.letter);
+  if (!id.success || !letter.success || letter.data !== params.letter) throw noSuchRevision();
+  return { id: id.data, letter: letter.data };
+}
+
+function send(res: Response, download: Download, type: string): void {
+  // Records are private to the organization: never kept by a shared cache.
+  res
+    .set('Cache-Control', 'private, no-store')
+    .attachment(download.filename)
+    .type(type)
+    .send(download.body);
+}
+
+/**
+ * `/api/orgs/:orgId/worksheets/…` downloads: the report, the record package and CSV files.
+ * Mounted ahead of the worksheet routes (so `export.csv` is not read as a worksheet id), each
+ * route passes the same gate as every org-scoped route (sign-in, then membership) itself,
+ * which leaves requests for other paths untouched.
+ */
+export function recordRoutes(svc: Services): Router {
+  const router = Router({ mergeParams: true });
+  const gate: RequestHandler[] = [requireUser(svc.sequelize), orgScope(svc.sequelize)];
+  const requester = (res: Response) => ({ name: signedInUser(res).name });
+
+  router.get('/export.csv', ...gate, authorize('read', 'Worksheet'), async (req, res) => {
+    const query = worksheetExportQuerySchema.parse(req.query);
+    const body = await worksheetsCsv(orgContextOf(res), query);
+    send(res, { filename: 'worksheets.csv', body }, 'text/csv; charset=utf-8; header=present');
+  });
+  router.get(
+    '/:id/revisions/:letter/report.pdf',
+    ...gate,
+    authorize('read', 'Revision'),
+    async (req, res) => {
+      const { id, letter } = revisionOf(req.params);
+      send(
+        res,
+        await downloadReport(orgContextOf(res), requester(res), id, letter),
+        'application/pdf',
+      );
+    },
+  );
+  router.get(
+    '/:id/revisions/:letter/record.zip',
+    ...gate,
+    authorize('read', 'Revision'),
+    async (req, res) => {
+      const { id, letter } = revisionOf(req.params);
+      send(
+        res,
+        await downloadPackage(orgContextOf(res), requester(res), id, letter),
+        'application/zip',
+      );
+    },
+  );
+  router.get(
+    '/:id/revisions/:letter/results.csv',
+    ...gate,
+    authorize('read', 'Revision'),
+    async (req, res) => {
+      const { id, letter } = revisionOf(req.params);
+      const { table } = resultsCsvQuerySchema.parse(req.query);
+      send(
+        res,
+        await downloadResultsCsv(orgContextOf(res), id, letter, table),
+        'text/csv; charset=utf-8; header=present',
+      );
+    },
+  );
+  return router;
+}

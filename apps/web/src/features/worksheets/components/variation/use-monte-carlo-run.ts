@@ -1,0 +1,93 @@
+import type { MonteCarloResult, WorksheetDraft } from '@biasproof/calc';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import type { MonteCarloRequest } from '@/features/worksheets/compute/monte-carlo-messages.ts';
+import {
+  defaultMonteCarloRunner,
+  type MonteCarloHandle,
+  type MonteCarloRunner,
+} from '@/features/worksheets/compute/monte-carlo-runner.ts';
+
+export type MonteCarloRunState =
+  | { status: 'idle' }
+  | { status: 'running'; done: number; total: number; failed: number }
+  | { status: 'cancelled'; done: number; total: number }
+  /** `key`: monteCarloKey() of the draft the run belongs to. */
+  | { status: 'complete'; key: string; result: MonteCarloResult }
+  | { status: 'failed'; message: string };
+
+export interface MonteCarloRun {
+  state: MonteCarloRunState;
+  /**
+   * Starts a run (stopping one still going). `onComplete` gets the result and the draft as it is
+   * when the run ends, and is called even if the view that started the run has closed.
+   */
+  start: (
+    request: MonteCarloRequest,
+    key: string,
+    onComplete?: (result: MonteCarloResult, draftNow: WorksheetDraft) => void,
+  ) => void;
+  cancel: () => void;
+}
+
+/**
+ * The session's Monte Carlo run. It lives above the results tabs, so a run goes on (and its
+ * result stays) while the author looks at another view.
+ */
+export function useMonteCarloRun(
+  draft: WorksheetDraft,
+  createRunner: () => MonteCarloRunner = defaultMonteCarloRunner,
+): MonteCarloRun {
+  const latestDraft = useRef(draft);
+  useEffect(() => {
+    latestDraft.current = draft;
+  }, [draft]);
+  const runner = useRef<MonteCarloRunner | null>(null);
+  const current = useRef<MonteCarloHandle | null>(null);
+  const [state, setState] = useState<MonteCarloRunState>({ status: 'idle' });
+
+  useEffect(
+    () => () => {
+      current.current = null;
+      runner.current?.dispose();
+      runner.current = null;
+    },
+    [],
+  );
+
+  const start = useCallback<MonteCarloRun['start']>(
+    (request, key, onComplete) => {
+      current.current?.cancel();
+      runner.current ??= createRunner();
+      setState({ status: 'running', done: 0, total: request.samples, failed: 0 });
+      const handle = runner.current.run(request, (p) => {
+        if (current.current === handle)
+          setState({ status: 'running', done: p.done, total: p.total, failed: p.failed });
+      });
+      current.current = handle;
+      handle.result.then(
+        (result) => {
+          if (current.current !== handle) return;
+          current.current = null;
+          if (result.status === 'cancelled') {
+            setState({ status: 'cancelled', done: result.samples, total: result.requested });
+            return;
+          }
+          setState({ status: 'complete', key, result });
+          onComplete?.(result, latestDraft.current);
+        },
+        (error: unknown) => {
+          if (current.current !== handle) return;
+          current.current = null;
+          setState({
+            status: 'failed',
+            message: error instanceof Error ? error.message : String(error),
+          });
+        },
+      );
+    },
+    [createRunner],
+  );
+
+  const cancel = useCallback(() => current.current?.cancel(), []);
+  return useMemo(() => ({ state, start, cancel }), [state, start, cancel]);
+}
