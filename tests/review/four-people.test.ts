@@ -46,6 +46,8 @@ describe('four people review and sign off a worksheet in the browser', () => {
   let browser: Browser;
   const people = {} as Record<'author' | 'checker' | 'approver' | 'manager', Person>;
   let worksheetUrl: string;
+  /** Uncaught errors in any of the four pages: there should be none. */
+  const pageErrors: string[] = [];
   const dir = screenshotDir();
 
   beforeAll(async () => {
@@ -74,8 +76,7 @@ describe('four people review and sign off a worksheet in the browser', () => {
       await addMembership(org, who, [...roles]);
       const context = await browser.newContext({ viewport: { width: 1600, height: 1000 } });
       const page = await context.newPage();
-      page.on('pageerror', (e) => console.log('PAGEERROR', role, e.message));
-      page.on('console', (m) => console.log('CONSOLE', role, m.type(), m.text()));
+      page.on('pageerror', (e) => pageErrors.push(`${role}: ${e.message}`));
       await signIn(page, who.email, who.password, org.slug);
       people[role] = { who, context, page };
     }
@@ -320,5 +321,6 @@ describe('four people review and sign off a worksheet in the browser', () => {
       .waitFor();
     expect(await seriousViolations(page)).toEqual([]);
     await page.screenshot({ path: join(dir, 'review-history.png'), fullPage: true });
+    expect(pageErrors).toEqual([]);
   });
 });

@@ -2,8 +2,9 @@ import type { WorkflowAction } from '@biasproof/shared';
 import type { OrgTx } from '../orgs/org-scope.ts';
 import type { WorksheetRow } from '../db/models/worksheet.ts';
 import type { OutboxEntry } from '../outbox/outbox.ts';
-import { composeMail } from '../mail/compose.ts';
+import { composeMail, type MailParts } from '../mail/compose.ts';
 import { listFindings } from './repository.ts';
+import { listWatchers } from './watchers.ts';
 
 interface Person {
   email: string;
@@ -18,8 +19,9 @@ async function person(tx: OrgTx, id: string | null): Promise<Person | null> {
 
 /**
  * The e-mails a transition triggers, to whoever acts next: submitted → the checker, returned →
- * the author with the open findings, accepted → the approver, signed → the author and the
- * checker. Written to the outbox in the transition's transaction.
+ * the author with the open findings, accepted → the approver, signed → the author, the
+ * checker and the worksheet's watchers, with a link to the signed revision's report. Written to
+ * the outbox in the transition's transaction.
  */
 export async function transitionMails(
   tx: OrgTx,
@@ -39,7 +41,7 @@ export async function transitionMails(
     kind: string,
     to: Person | null,
     subject: string,
-    paragraphs: (string | string[])[],
+    paragraphs: MailParts['paragraphs'],
   ): OutboxEntry[] =>
     to
       ? [
@@ -81,11 +83,19 @@ export async function transitionMails(
       );
     case 'sign': {
       const checker = await person(tx, w.checkedByUserId ?? w.checkerUserId);
-      const lines = [`${s.actorName} signed off ${title}.`];
-      return [
-        ...mail('worksheet.signed', author, `Signed off: ${title}`, lines),
-        ...mail('worksheet.signed', checker, `Signed off: ${title}`, lines),
-      ];
+      const report = {
+        label: `Report of revision ${revision} (PDF)`,
+        url: `${s.appUrl.replace(/\/$/, '')}/api/orgs/${tx.orgId}/worksheets/${w.id}/revisions/${revision}/report.pdf`,
+      };
+      const lines = [`${s.actorName} signed off ${title}.`, [report]];
+      // Author, checker and watchers, each once (a watcher may also be the author).
+      const recipients = new Map<string, Person>();
+      for (const p of [author, checker, ...(await listWatchers(tx, w.id))]) {
+        if (p && !recipients.has(p.email)) recipients.set(p.email, p);
+      }
+      return [...recipients.values()].flatMap((to) =>
+        mail('worksheet.signed', to, `Signed off: ${title}`, lines),
+      );
     }
     case 'withdraw':
     case 'revise':

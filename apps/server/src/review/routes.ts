@@ -16,6 +16,7 @@ import { transitionWorksheet } from './transitions.ts';
 import { getAvailableActions } from './actions.ts';
 import { getFindings, moveFinding, noSuchFinding, raiseFinding } from './findings.ts';
 import { getSignatures } from './signatures.ts';
+import { getWatchers, setWatching } from './watchers.ts';
 import { replyToFinding } from './finding-replies.ts';
 import {
   getRevisionDetail,
@@ -73,6 +74,17 @@ export function worksheetReviewRoutes(svc: Services): Router {
     const query = revisionDiffQuerySchema.parse(req.query);
     res.json(await getRevisionDiff(orgContextOf(res), id, query));
   });
+  router.get('/:id/watchers', authorize('read', 'Worksheet'), async (req, res) => {
+    res.json(await getWatchers(orgContextOf(res), worksheetId(req.params)));
+  });
+  for (const [method, watching] of [
+    ['put', true],
+    ['delete', false],
+  ] as const) {
+    router[method]('/:id/watchers/me', authorize('read', 'Worksheet'), async (req, res) => {
+      res.json(await setWatching(orgContextOf(res), worksheetId(req.params), watching));
+    });
+  }
   return router;
 }
 

@@ -1,3 +1,4 @@
+import { QueryTypes } from 'sequelize';
 import type { OrgContext, OrgTx } from '../orgs/org-scope.ts';
 import type { PasswordHasher } from '../auth/passwords.ts';
 import type { RevisionRow } from '../db/models/revision.ts';
@@ -10,6 +11,34 @@ import { assertWorksheetExists } from './findings.ts';
 export class SignaturePasswordRefused extends Error {
   constructor(readonly revision: string) {
     super('signature password refused');
+  }
+}
+
+/** Wrong signing passwords one person may enter within the window before signing pauses. */
+export const MAX_REFUSED_SIGNATURES = 5;
+const REFUSED_SIGNATURE_WINDOW_MINUTES = 15;
+
+/**
+ * A session holder could otherwise guess the account's password through the signing dialog
+ * without meeting the sign-in lock. The refusals are already audited, so the audit log is the
+ * counter: after five within 15 minutes, signing answers 429 before any password is checked.
+ */
+async function assertSigningAttemptsLeft(tx: OrgTx, signerId: string): Promise<void> {
+  const [row] = await tx.sequelize.query<{ refused: string }>(
+    `SELECT count(*) AS refused FROM audit_events
+      WHERE org_id = $1 AND actor_user_id = $2 AND action = 'worksheet.signature-refused'
+        AND at > now() - make_interval(mins => $3)`,
+    {
+      bind: [tx.orgId, signerId, REFUSED_SIGNATURE_WINDOW_MINUTES],
+      transaction: tx.transaction,
+      type: QueryTypes.SELECT,
+    },
+  );
+  if (Number(row?.refused ?? 0) >= MAX_REFUSED_SIGNATURES) {
+    throw new AppError(
+      'too-many-requests',
+      `Too many wrong passwords when signing; try again in ${REFUSED_SIGNATURE_WINDOW_MINUTES} minutes. Nothing was signed.`,
+    );
   }
 }
 
@@ -35,6 +64,7 @@ export async function signRevision(
       meaning: `Choose one of: ${meanings.join(', ')}.`,
     });
   }
+  await assertSigningAttemptsLeft(tx, s.signerId);
   const signer = await findUserById(tx, s.signerId);
   if (!signer || !(await passwords.verify(signer.passwordHash, s.password))) {
     throw new SignaturePasswordRefused(s.revision.letter);

@@ -198,7 +198,7 @@ export async function createPendingInvitation(
 export interface OrgRouteCase {
   /** e.g. `PATCH /members/:userId` */
   name: string;
-  method: 'get' | 'post' | 'patch' | 'delete';
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
   action: Action;
   subject: SubjectName;
   /** Fields of the object the rule is checked against, when the rule has conditions. */
@@ -552,6 +552,33 @@ export const orgRoutes: OrgRouteCase[] = [
     action: 'read',
     subject: 'Revision',
     path: (w) => `/worksheets/${w.checkedWorksheetId}/signatures`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'GET /worksheets/:id/watchers',
+    method: 'get',
+    action: 'read',
+    subject: 'Worksheet',
+    path: (w) => `/worksheets/${w.worksheetId}/watchers`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'PUT /worksheets/:id/watchers/me',
+    method: 'put',
+    action: 'read',
+    subject: 'Worksheet',
+    path: (w) => `/worksheets/${w.assignedWorksheetId}/watchers/me`,
+    success: 200,
+    namesObject: true,
+  },
+  {
+    name: 'DELETE /worksheets/:id/watchers/me',
+    method: 'delete',
+    action: 'read',
+    subject: 'Worksheet',
+    path: (w) => `/worksheets/${w.assignedWorksheetId}/watchers/me`,
     success: 200,
     namesObject: true,
   },

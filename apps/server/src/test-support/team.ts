@@ -32,6 +32,7 @@ export function orgApi({ agent, csrf }: SignedInAgent, orgId: string) {
     get: (path: string) => agent.get(url(path)),
     post: (path: string, body?: object) =>
       agent.post(url(path)).set('x-csrf-token', csrf).send(body),
+    put: (path: string, body?: object) => agent.put(url(path)).set('x-csrf-token', csrf).send(body),
     patch: (path: string, body: object) =>
       agent.patch(url(path)).set('x-csrf-token', csrf).send(body),
     delete: (path: string) => agent.delete(url(path)).set('x-csrf-token', csrf),

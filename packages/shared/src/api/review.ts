@@ -163,3 +163,14 @@ export const queueResponseSchema = z.object({
   recentlySigned: z.array(worksheetListItemSchema),
 });
 export type QueueResponse = z.infer<typeof queueResponseSchema>;
+
+/**
+ * `GET /api/orgs/:orgId/worksheets/:id/watchers`, and the answer of `PUT` / `DELETE …/watchers/me`
+ * (start / stop watching): the people e-mailed when the worksheet is signed off, beside its
+ * author and checker.
+ */
+export const watchersResponseSchema = z.object({
+  watching: z.boolean(),
+  watchers: z.array(personRefSchema),
+});
+export type WatchersResponse = z.infer<typeof watchersResponseSchema>;

@@ -366,4 +366,26 @@ describe('review: guards, separation of duties, frozen revisions and concurrency
       ),
     ).toMatchObject({ status: 400, code: 'validation-failed' });
   });
+
+  it('when the approver enters five wrong signing passwords, then the sixth attempt answers 429 even with the right password, and nothing is signed', async () => {
+    const ws = await worksheetIn('checked');
+    const sign = (password: string) =>
+      step(team.as.abe, ws, { action: 'sign', version: ws.version, meaning: 'Reviewed', password });
+    for (let i = 0; i < 5; i++) {
+      expect((await sign(`wrong-${i}`)).body.error.code).toBe('bad-password');
+    }
+    const before = await orgSnapshot(t, team.org.id);
+
+    const paused = await sign(TEST_PASSWORD);
+
+    expect(paused.status).toBe(429);
+    expect(paused.body.error.message).toMatch(/Too many wrong passwords when signing/);
+    expect(await orgSnapshot(t, team.org.id)).toEqual(before);
+    const [row] = await systemRows<{ state: string }>(
+      t,
+      'SELECT state FROM worksheets WHERE id = $1',
+      [ws.id],
+    );
+    expect(row?.state).toBe('checked');
+  });
 });

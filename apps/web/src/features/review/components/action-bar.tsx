@@ -29,6 +29,8 @@ export interface ActionBarProps {
   roles: readonly Role[];
   userId: string;
   printedName: string;
+  /** The person's e-mail (the sign-off form's username). */
+  username: string;
   timeZone: string;
   unsavedEdits: boolean;
   /** After a step (or a stale version): start the page afresh from the server. */
@@ -42,6 +44,7 @@ export function ActionBar({
   roles,
   userId,
   printedName,
+  username,
   timeZone,
   unsavedEdits,
   onStep,
@@ -101,6 +104,7 @@ export function ActionBar({
             return (
               <li key={v.action} className="flex max-w-xs flex-col gap-1">
                 <Button
+                  className="self-start"
                   variant={
                     copy.danger ? 'dangerOutline' : v.action === 'sign' ? 'primary' : 'outline'
                   }
@@ -129,6 +133,7 @@ export function ActionBar({
           worksheet={worksheet}
           meanings={actions.data?.signatureMeanings ?? []}
           printedName={printedName}
+          username={username}
           timeZone={timeZone}
           {...outcome}
         />

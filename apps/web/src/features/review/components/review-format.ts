@@ -34,11 +34,11 @@ export const stateWords: Record<string, string> = {
 // The unit of a number follows from the last part of its result path (see the worksheets
 // README's list of paths); anything not listed is shown without a unit.
 const unitBySuffix: [RegExp, string][] = [
-  [/^nodes\.[^.]+$/, 'V'],
+  [/(^|\.)nodes\.[^.]+$/, 'V'],
   [/^sources\.[^.]+$/, 'A'],
   [/\.(id|ic|ib|current|i)$/, 'A'],
   [
-    /\.(vd|vbe|vce|vgs|vds|vth|v|voltage|swing|amplitude|linearPeak|exactPositive|exactNegative)$/,
+    /\.(vd|vj|vbe|vce|vgs|vds|vth|v|voltage|swing|amplitude|linearPeak|exactPositive|exactNegative)$/,
     'V',
   ],
   [/\.(rd|rs|rpi|ro|ohm|resistance)$/, 'Ω'],

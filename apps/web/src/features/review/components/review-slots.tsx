@@ -135,6 +135,7 @@ export function ReviewSlots({
           roles={membership.roles}
           userId={user.id}
           printedName={user.name}
+          username={user.email}
           timeZone={timeZone}
           unsavedEdits={unsavedEdits}
           onStep={afterStep}

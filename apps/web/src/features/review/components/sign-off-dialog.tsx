@@ -25,6 +25,7 @@ export function SignOffDialog({
   worksheet,
   meanings,
   printedName,
+  username,
   timeZone,
   onDone,
   onStale,
@@ -34,6 +35,8 @@ export function SignOffDialog({
   worksheet: Worksheet;
   meanings: readonly string[];
   printedName: string;
+  /** The signer's e-mail, so a password manager knows whose password this is. */
+  username: string;
   timeZone: string;
 }) {
   const transition = useTransitionWorksheet(orgId, worksheet.id);
@@ -98,6 +101,7 @@ export function SignOffDialog({
         onSubmit={(event) => void handleSubmit(onValid)(event)}
         className="flex flex-col gap-3"
       >
+        <input type="email" autoComplete="username" value={username} readOnly hidden />
         <SelectField
           label="Meaning of your signature"
           error={errors.meaning?.message}

@@ -108,6 +108,8 @@ export function WorksheetWorkspace({
     ? { result: stored.results, computedDraft: draft, elapsedMs: null, computing: false }
     : computed;
 
+  const editing = useMemo(() => ({ draft, edit, readOnly }), [draft, edit, readOnly]);
+
   const flagged = useMemo(() => {
     const names = new Set<string>();
     const result = live.result;
@@ -172,6 +174,7 @@ export function WorksheetWorkspace({
                 storedFrom={showStored ? stored.from : undefined}
                 pendingNote={pendingNote}
                 onGoToElement={focusElementRow}
+                editing={editing}
               />
             </ResultMarksProvider>
           </Panel>

@@ -1,4 +1,9 @@
-import type { AnalysisSettings, DraftCircuit, LimitInput, VariedParameterInput } from '@biasproof/calc';
+import type {
+  AnalysisSettings,
+  DraftCircuit,
+  LimitInput,
+  VariedParameterInput,
+} from '@biasproof/calc';
 import type { MonteCarloProgress, MonteCarloResult } from '@biasproof/calc';
 
 /** Messages between the page and the Monte Carlo worker (monte-carlo.worker.ts). */
@@ -15,8 +20,7 @@ export interface MonteCarloRequest {
 }
 
 export type MonteCarloToWorker =
-  | { type: 'start'; id: number; request: MonteCarloRequest }
-  | { type: 'cancel'; id: number };
+  { type: 'start'; id: number; request: MonteCarloRequest } | { type: 'cancel'; id: number };
 
 export type MonteCarloFromWorker =
   | { type: 'progress'; id: number; progress: MonteCarloProgress }

@@ -18,7 +18,10 @@ export interface MonteCarloHandle {
 }
 
 export interface MonteCarloRunner {
-  run: (request: MonteCarloRequest, onProgress: (p: MonteCarloProgress) => void) => MonteCarloHandle;
+  run: (
+    request: MonteCarloRequest,
+    onProgress: (p: MonteCarloProgress) => void,
+  ) => MonteCarloHandle;
   /** Stops the worker (a run still going is abandoned). */
   dispose: () => void;
 }

@@ -3,7 +3,7 @@ import { EmptyState } from '@/components/ui/empty-state.tsx';
 import { formatPinned } from '@/features/review/components/review-format.ts';
 
 const head = 'px-2 py-1.5 text-left text-xs font-semibold text-ink-600';
-const cell = 'px-2 py-1.5 text-sm text-ink-900 tabular-nums';
+const cell = 'px-2 py-1.5 text-sm text-ink-900 tabular-nums whitespace-nowrap';
 
 // Diff paths of results carry a `results.` prefix; the unit guess reads the path without it.
 const shown = (entry: DiffEntry, value: DiffEntry['before']) =>
@@ -77,7 +77,10 @@ function DiffTable({
             <tbody>
               {entries.map((e) => (
                 <tr key={e.path} className="border-t border-rule">
-                  <th scope="row" className={`${cell} text-left font-mono text-xs font-semibold`}>
+                  <th
+                    scope="row"
+                    className={`${cell} !whitespace-normal break-all text-left font-mono text-xs font-semibold`}
+                  >
                     {e.path}
                     {e.change === 'changed' ? null : (
                       <span className="ml-1 font-sans font-normal text-ink-600">

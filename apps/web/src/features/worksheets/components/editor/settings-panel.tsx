@@ -81,8 +81,11 @@ export function SettingsPanel({ circuit, settings, edit }: SettingsPanelProps) {
   useEffect(() => {
     const subscription = watch((_, { name }) => {
       const parsed = settingsFormSchema.safeParse(getValues());
-      if (parsed.success && !sameSettings(parsed.data, current.current))
-        edit({ type: 'set-settings', settings: parsed.data }, `settings.${name ?? 'all'}`);
+      if (!parsed.success || sameSettings(parsed.data, current.current)) return;
+      // The panel's fields do not hold the variation section (its own view edits it): keep it.
+      const { variation } = current.current;
+      const settings = variation ? { ...parsed.data, variation } : parsed.data;
+      edit({ type: 'set-settings', settings }, `settings.${name ?? 'all'}`);
     });
     return () => subscription.unsubscribe();
   }, [watch, getValues, edit]);

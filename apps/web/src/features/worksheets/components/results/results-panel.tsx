@@ -5,6 +5,10 @@ import { EngineErrorNotice } from '@/features/worksheets/components/results/engi
 import { LoadLineView } from '@/features/worksheets/components/results/load-line-view.tsx';
 import { SignalSizeView } from '@/features/worksheets/components/results/signal-size-view.tsx';
 import { SmallSignalView } from '@/features/worksheets/components/results/small-signal-view.tsx';
+import { LimitsView } from '@/features/worksheets/components/variation/limits-view.tsx';
+import { useMonteCarloRun } from '@/features/worksheets/components/variation/use-monte-carlo-run.ts';
+import type { VariationEditing } from '@/features/worksheets/components/variation/variation-draft.ts';
+import { VariationView } from '@/features/worksheets/components/variation/variation-view.tsx';
 import { displayName, independentSources } from '@/features/worksheets/draft/circuit-facts.ts';
 import { sameName } from '@biasproof/calc';
 import type { LiveResults } from '@/features/worksheets/hooks/use-live-results.ts';
@@ -18,6 +22,8 @@ interface ResultsPanelProps {
   /** For stored results: the revision they belong to. */
   storedFrom?: StoredFrom | undefined;
   onGoToElement: (name: string) => void;
+  /** The draft and its edit path, for the variation and limits views' forms. */
+  editing: VariationEditing;
 }
 
 /** The revision stored results were computed for. */
@@ -32,6 +38,8 @@ const views = [
   { id: 'small-signal', label: 'Small-signal' },
   { id: 'signal-size', label: 'Signal size' },
   { id: 'load-line', label: 'Load line' },
+  { id: 'variation', label: 'Variation' },
+  { id: 'limits', label: 'Limits and checks' },
 ] as const;
 
 function OriginLine({
@@ -82,8 +90,11 @@ export function ResultsPanel({
   pendingNote,
   storedFrom,
   onGoToElement,
+  editing,
 }: ResultsPanelProps) {
   const [view, setView] = useState<string>('bias');
+  // Above the tabs, so that a Monte Carlo run goes on while another view is open.
+  const monteCarlo = useMonteCarloRun(editing.draft);
   const { result, computedDraft } = live;
   const circuit = computedDraft?.circuit;
   const show = (name: string) => (circuit ? displayName(circuit, name) : name);
@@ -127,6 +138,15 @@ export function ResultsPanel({
               <BiasView results={result} circuit={circuit} show={show} />
             ) : v.id === 'small-signal' ? (
               <SmallSignalView results={result} show={show} />
+            ) : v.id === 'variation' ? (
+              <VariationView
+                results={result}
+                editing={editing}
+                monteCarlo={monteCarlo}
+                show={show}
+              />
+            ) : v.id === 'limits' ? (
+              <LimitsView results={result} editing={editing} monteCarlo={monteCarlo} />
             ) : v.id === 'signal-size' ? (
               <SignalSizeView results={result} show={show} unit={input?.kind === 'I' ? 'A' : 'V'} />
             ) : (

@@ -23,7 +23,14 @@ const margin = { top: 28, right: 24, bottom: 28, left: 8 };
 const yAxisWidth = 56;
 
 /** Monte Carlo histogram of one result, with the limits and the nominal value marked. */
-export function HistogramPlot({ path, unit, histogram, count, nominal, bounds }: HistogramPlotProps) {
+export function HistogramPlot({
+  path,
+  unit,
+  histogram,
+  count,
+  nominal,
+  bounds,
+}: HistogramPlotProps) {
   const { ref, width } = useChartWidth();
   const { edges, counts } = histogram;
   const first = edges[0] ?? 0;
@@ -73,7 +80,12 @@ export function HistogramPlot({ path, unit, histogram, count, nominal, bounds }:
             }}
             formatter={(v) => [String(v), 'Samples']}
           />
-          <Bar dataKey="count" fill={plotColours.primary} barSize={barSize} isAnimationActive={false} />
+          <Bar
+            dataKey="count"
+            fill={plotColours.primary}
+            barSize={barSize}
+            isAnimationActive={false}
+          />
           {nominal === undefined ? null : (
             <ReferenceLine
               x={nominal}

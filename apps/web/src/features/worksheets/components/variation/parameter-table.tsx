@@ -46,10 +46,18 @@ export function ParameterTable({
             <caption className="sr-only">Varied parameters ({fields.length})</caption>
             <thead className="bg-paper">
               <tr>
-                <th scope="col" className={tableHead}>Varies</th>
-                <th scope="col" className={tableHead}>Tolerance</th>
-                <th scope="col" className={tableHead}>Distribution</th>
-                <th scope="col" className={tableHead}>Tempco (ppm/K)</th>
+                <th scope="col" className={tableHead}>
+                  Varies
+                </th>
+                <th scope="col" className={tableHead}>
+                  Tolerance
+                </th>
+                <th scope="col" className={tableHead}>
+                  Distribution
+                </th>
+                <th scope="col" className={tableHead}>
+                  Tempco (ppm/K)
+                </th>
                 {readOnly ? null : (
                   <th scope="col" className={tableHead}>
                     <span className="sr-only">Actions</span>
@@ -183,8 +191,8 @@ export function ParameterTable({
         </div>
       )}
       <p className="text-xs text-ink-600">
-        A normal tolerance spans ±3σ unless set otherwise; a tempco scales the value about 27 °C.
-        Values in engineering notation (9k9, 2.2u).
+        A normal tolerance spans ±3σ unless set otherwise; an empty tolerance keeps the value fixed
+        (its tempco alone applies, about 27 °C). Values in engineering notation (9k9, 2.2u).
       </p>
     </div>
   );

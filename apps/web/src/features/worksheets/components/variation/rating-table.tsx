@@ -44,7 +44,9 @@ export function RatingTable({
             <caption className="sr-only">Part ratings ({fields.length})</caption>
             <thead className="bg-paper">
               <tr>
-                <th scope="col" className={tableHead}>Part</th>
+                <th scope="col" className={tableHead}>
+                  Part
+                </th>
                 {ratingFields.map(([key, label]) => (
                   <th key={key} scope="col" className={tableHead}>
                     {label}

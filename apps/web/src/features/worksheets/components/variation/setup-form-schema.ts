@@ -104,7 +104,8 @@ const list = (value: string) => value.split(/[\s,;]+/).filter((item) => item !==
 function readParameter(ctx: Ctx, row: ParameterRowValues, i: number, seen: Set<string>) {
   const at = (field: keyof ParameterRowValues) => ['parameters', i, field];
   const target = row.target.trim();
-  if (target === '') ctx.addIssue({ code: 'custom', path: at('target'), message: 'Choose what varies.' });
+  if (target === '')
+    ctx.addIssue({ code: 'custom', path: at('target'), message: 'Choose what varies.' });
   else if (seen.has(target.toLowerCase()))
     ctx.addIssue({ code: 'custom', path: at('target'), message: `${target} is varied twice.` });
   seen.add(target.toLowerCase());
@@ -180,8 +181,7 @@ function fieldOf(path: PropertyKey[]): (string | number)[] {
   if (section === 'parameters' && typeof index === 'number')
     return ['parameters', index, field === 'min' || field === 'max' ? String(field) : 'target'];
   if (section === 'ratings' && typeof index === 'number') return ['ratings', index, 'element'];
-  if (section === 'temperatures')
-    return ['temperatureList'];
+  if (section === 'temperatures') return ['temperatureList'];
   if (section === 'standardSeries') return ['series'];
   if (section === 'probes') return ['probes'];
   return ['ambient'];

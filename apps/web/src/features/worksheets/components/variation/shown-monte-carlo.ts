@@ -23,7 +23,8 @@ export function shownMonteCarlo(
 ): ShownMonteCarlo | null {
   if (state.status === 'complete') {
     const recorded = variationOf(draft.settings).monteCarlo;
-    if (state.key === monteCarloKey(draft, recorded)) return { result: state.result, origin: 'run' };
+    if (state.key === monteCarloKey(draft, recorded))
+      return { result: state.result, origin: 'run' };
   }
   if (results?.monteCarlo.ok) return { result: results.monteCarlo.value, origin: 'results' };
   return null;

@@ -1,7 +1,7 @@
 import { formatValue, type DraftCircuit, type StandardSuggestionsResult } from '@biasproof/calc';
 import { Button } from '@/components/ui/button.tsx';
 import { ResultNumber } from '@/features/worksheets/components/results/result-cells.tsx';
-import type { ResultRow } from '@/features/worksheets/components/results/result-csv.ts';
+import type { ResultCell, ResultRow } from '@/features/worksheets/components/results/result-csv.ts';
 import { ResultTable } from '@/features/worksheets/components/results/result-table.tsx';
 import { tableCell, tableHead } from '@/features/worksheets/components/variation/table-cells.tsx';
 import type { VariationEditing } from '@/features/worksheets/components/variation/variation-draft.ts';
@@ -42,14 +42,23 @@ export function StandardValuesSection({
       key: path,
       cells: [
         { text: path },
-        { value: suggestions.nominal[path] ?? null, unit, path: `variation.standardValues.nominal.${path}` },
-        ...series.flatMap((s) => {
+        {
+          value: suggestions.nominal[path] ?? null,
+          unit,
+          path: `variation.standardValues.nominal.${path}`,
+        },
+        ...series.flatMap((s): ResultCell[] => {
           const r = suggestions.recomputed[s];
           const base = `variation.standardValues.recomputed.${s}.${path}`;
           return r?.ok
             ? [
                 { value: r.values[path] ?? null, unit, path: base },
-                { value: r.changePercent[path] ?? null, unit: '%', path: `${base}.change`, percent: true },
+                {
+                  value: r.changePercent[path] ?? null,
+                  unit: '%',
+                  path: `${base}.change`,
+                  percent: true,
+                },
               ]
             : [{ text: `did not solve: ${r?.error.message ?? ''}` }, { text: '—' }];
         }),
@@ -66,8 +75,12 @@ export function StandardValuesSection({
           </caption>
           <thead className="bg-paper">
             <tr>
-              <th scope="col" className={tableHead}>Resistor</th>
-              <th scope="col" className={tableHead}>Value</th>
+              <th scope="col" className={tableHead}>
+                Resistor
+              </th>
+              <th scope="col" className={tableHead}>
+                Value
+              </th>
               {series.map((s) => (
                 <th key={s} scope="col" className={tableHead}>
                   {s}
@@ -86,14 +99,27 @@ export function StandardValuesSection({
                 </td>
                 {series.map((s) => {
                   const v = r.suggestions[s];
-                  if (!v) return <td key={s} className={tableCell}>—</td>;
+                  if (!v)
+                    return (
+                      <td key={s} className={tableCell}>
+                        —
+                      </td>
+                    );
                   const same = v.value === r.value;
                   return (
                     <td key={s} className={tableCell}>
                       <span className="flex flex-wrap items-center gap-2">
-                        <ResultNumber value={v.value} unit="Ω" path={`variation.standardValues.${r.element}.${s}`} />
+                        <ResultNumber
+                          value={v.value}
+                          unit="Ω"
+                          path={`variation.standardValues.${r.element}.${s}`}
+                        />
                         <span className="text-xs text-ink-600">
-                          ({same ? 'exact' : `${v.errorPercent > 0 ? '+' : '−'}${formatValue(Math.abs(v.errorPercent), '%', { digits: 2 })}`})
+                          (
+                          {same
+                            ? 'exact'
+                            : `${v.errorPercent > 0 ? '+' : '−'}${formatValue(Math.abs(v.errorPercent), '%', { digits: 2 })}`}
+                          )
                         </span>
                         {readOnly || same ? null : (
                           <Button

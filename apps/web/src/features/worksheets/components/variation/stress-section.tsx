@@ -69,7 +69,9 @@ export function StressSection({
         note={`Allowed = derating factor × rating (${policy.name}); junction temperature = ambient ${stress.ambient} °C + θJA·P.`}
       />
       <details className="text-xs text-ink-700">
-        <summary className="cursor-pointer font-semibold">Where the derating factors come from</summary>
+        <summary className="cursor-pointer font-semibold">
+          Where the derating factors come from
+        </summary>
         <ul className="mt-2 flex list-disc flex-col gap-1 pl-5">
           {policyWords.map(([key, words]) => (
             <li key={key}>

@@ -47,7 +47,13 @@ type CellSelectProps = Omit<ComponentProps<'select'>, 'id' | 'className'> & {
   children: ReactNode;
 };
 
-export function CellSelect({ label, error, width = 'w-auto', children, ...props }: CellSelectProps) {
+export function CellSelect({
+  label,
+  error,
+  width = 'w-auto',
+  children,
+  ...props
+}: CellSelectProps) {
   const id = useId();
   return (
     <>

@@ -13,18 +13,21 @@ export type MonteCarloRunState =
   | { status: 'cancelled'; done: number; total: number }
   /** `key`: monteCarloKey() of the draft the run belongs to. */
   | { status: 'complete'; key: string; result: MonteCarloResult }
+  /** Completed, but the draft changed while it ran: the result belongs to no draft on screen. */
+  | { status: 'stale' }
   | { status: 'failed'; message: string };
 
 export interface MonteCarloRun {
   state: MonteCarloRunState;
   /**
    * Starts a run (stopping one still going). `onComplete` gets the result and the draft as it is
-   * when the run ends, and is called even if the view that started the run has closed.
+   * when the run ends, even if the view that started the run has closed, and answers whether
+   * the result still belongs to that draft.
    */
   start: (
     request: MonteCarloRequest,
     key: string,
-    onComplete?: (result: MonteCarloResult, draftNow: WorksheetDraft) => void,
+    onComplete: (result: MonteCarloResult, draftNow: WorksheetDraft) => boolean,
   ) => void;
   cancel: () => void;
 }
@@ -72,8 +75,8 @@ export function useMonteCarloRun(
             setState({ status: 'cancelled', done: result.samples, total: result.requested });
             return;
           }
-          setState({ status: 'complete', key, result });
-          onComplete?.(result, latestDraft.current);
+          const belongs = onComplete(result, latestDraft.current);
+          setState(belongs ? { status: 'complete', key, result } : { status: 'stale' });
         },
         (error: unknown) => {
           if (current.current !== handle) return;

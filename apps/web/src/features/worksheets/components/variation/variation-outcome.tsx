@@ -16,7 +16,8 @@ export function OutcomeBody<T>({
   show: (name: string) => string;
   children: (value: T) => ReactNode;
 }) {
-  if (!outcome) return <MissingSetting>Set up what varies above; the results appear here.</MissingSetting>;
+  if (!outcome)
+    return <MissingSetting>Set up what varies above; the results appear here.</MissingSetting>;
   if (outcome.ok) return <>{children(outcome.value)}</>;
   if ('missing' in outcome) return <MissingSetting>{outcome.missing}</MissingSetting>;
   return <EngineErrorNotice title={title} error={outcome.error} show={show} />;

@@ -100,11 +100,21 @@ export function VariationSetup({
         <Section title="Temperatures">
           <div className="flex flex-wrap gap-x-5 gap-y-2">
             <label className="flex items-center gap-2 text-sm text-ink-900">
-              <input type="radio" value="list" className="size-4 accent-accent" {...register('temperatureMode')} />
+              <input
+                type="radio"
+                value="list"
+                className="size-4 accent-accent"
+                {...register('temperatureMode')}
+              />
               List
             </label>
             <label className="flex items-center gap-2 text-sm text-ink-900">
-              <input type="radio" value="range" className="size-4 accent-accent" {...register('temperatureMode')} />
+              <input
+                type="radio"
+                value="range"
+                className="size-4 accent-accent"
+                {...register('temperatureMode')}
+              />
               Range
             </label>
           </div>
@@ -118,9 +128,24 @@ export function VariationSetup({
             />
           ) : (
             <div className="grid gap-3 sm:grid-cols-3">
-              <TextField label="From (°C)" autoComplete="off" error={errors.temperatureFrom?.message} {...register('temperatureFrom')} />
-              <TextField label="To (°C)" autoComplete="off" error={errors.temperatureTo?.message} {...register('temperatureTo')} />
-              <TextField label="Step (K)" autoComplete="off" error={errors.temperatureStep?.message} {...register('temperatureStep')} />
+              <TextField
+                label="From (°C)"
+                autoComplete="off"
+                error={errors.temperatureFrom?.message}
+                {...register('temperatureFrom')}
+              />
+              <TextField
+                label="To (°C)"
+                autoComplete="off"
+                error={errors.temperatureTo?.message}
+                {...register('temperatureTo')}
+              />
+              <TextField
+                label="Step (K)"
+                autoComplete="off"
+                error={errors.temperatureStep?.message}
+                {...register('temperatureStep')}
+              />
             </div>
           )}
         </Section>
@@ -152,7 +177,12 @@ export function VariationSetup({
           <div className="flex flex-wrap gap-x-5 gap-y-2">
             {E_SERIES_NAMES.map((s) => (
               <label key={s} className="flex items-center gap-2 text-sm text-ink-900">
-                <input type="checkbox" value={s} className="size-4 accent-accent" {...register('series')} />
+                <input
+                  type="checkbox"
+                  value={s}
+                  className="size-4 accent-accent"
+                  {...register('series')}
+                />
                 {s}
               </label>
             ))}
