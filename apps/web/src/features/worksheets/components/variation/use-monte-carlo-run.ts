@@ -45,7 +45,8 @@ export function useMonteCarloRun(
     latestDraft.current = draft;
   }, [draft]);
   const runner = useRef<MonteCarloRunner | null>(null);
-  const current = useRef<MonteCarloHandle | null>(null);
+  /** The run whose news is shown; answers of a run that was replaced are ignored. */
+  const current = useRef<{ handle: MonteCarloHandle | null } | null>(null);
   const [state, setState] = useState<MonteCarloRunState>({ status: 'idle' });
 
   useEffect(
@@ -59,17 +60,20 @@ export function useMonteCarloRun(
 
   const start = useCallback<MonteCarloRun['start']>(
     (request, key, onComplete) => {
-      current.current?.cancel();
+      current.current?.handle?.cancel();
       runner.current ??= createRunner();
       setState({ status: 'running', done: 0, total: request.samples, failed: 0 });
+      // The engine may report its first chunk before run() returns: the run is current already.
+      const run: { handle: MonteCarloHandle | null } = { handle: null };
+      current.current = run;
       const handle = runner.current.run(request, (p) => {
-        if (current.current === handle)
+        if (current.current === run)
           setState({ status: 'running', done: p.done, total: p.total, failed: p.failed });
       });
-      current.current = handle;
+      run.handle = handle;
       handle.result.then(
         (result) => {
-          if (current.current !== handle) return;
+          if (current.current !== run) return;
           current.current = null;
           if (result.status === 'cancelled') {
             setState({ status: 'cancelled', done: result.samples, total: result.requested });
@@ -79,7 +83,7 @@ export function useMonteCarloRun(
           setState(belongs ? { status: 'complete', key, result } : { status: 'stale' });
         },
         (error: unknown) => {
-          if (current.current !== handle) return;
+          if (current.current !== run) return;
           current.current = null;
           setState({
             status: 'failed',
@@ -91,6 +95,6 @@ export function useMonteCarloRun(
     [createRunner],
   );
 
-  const cancel = useCallback(() => current.current?.cancel(), []);
+  const cancel = useCallback(() => current.current?.handle?.cancel(), []);
   return useMemo(() => ({ state, start, cancel }), [state, start, cancel]);
 }
