@@ -97,10 +97,16 @@ describe('four people review and sign off a worksheet in the browser', () => {
       .click();
     await dialog.waitFor({ state: 'detached' });
   }
-  async function fromQueue(page: Page, section: string) {
+  async function fromQueue(page: Page, section: string, screenshot?: string) {
     await page.goto(`${baseUrl()}/o/${org.slug}`);
     const list = page.getByRole('region', { name: section });
-    await list.getByRole('link', { name: TITLE }).click();
+    const link = list.getByRole('link', { name: TITLE });
+    await link.waitFor();
+    if (screenshot) {
+      expect(await seriousViolations(page)).toEqual([]);
+      await page.screenshot({ path: join(dir, screenshot), fullPage: true });
+    }
+    await link.click();
     await page.getByRole('heading', { level: 1, name: TITLE }).waitFor();
     expect(page.url()).toBe(worksheetUrl);
   }
@@ -150,7 +156,7 @@ describe('four people review and sign off a worksheet in the browser', () => {
 
   it('when the checker clicks a number and returns the revision with a major finding, then accept was blocked by it', async () => {
     const { page } = people.checker;
-    await fromQueue(page, 'To check');
+    await fromQueue(page, 'To check', 'review-queue-checker.png');
     const engine = solveOperatingPoint(circuit);
     const d1 = engine.devices.d1;
     if (d1?.kind !== 'D') throw new Error('d1 is a diode');

@@ -48,12 +48,17 @@ describe('demo data', () => {
       'superseded',
       'withdrawn',
     ]);
+    // Counted in the demo organization only: other tests share this database.
     const [counts] = await systemRows<Record<string, string>>(
       t,
-      `SELECT (SELECT count(*) FROM findings WHERE severity = 'major' AND status <> 'closed') AS "openMajor",
-              (SELECT count(*) FROM finding_replies WHERE kind = 'reply') AS replies,
-              (SELECT count(*) FROM signatures) AS signatures,
-              (SELECT count(*) FROM signatures WHERE superseded_at IS NOT NULL) AS superseded`,
+      `WITH o AS (SELECT id FROM organizations WHERE slug = 'quietline-analog')
+       SELECT (SELECT count(*) FROM findings WHERE org_id = (SELECT id FROM o)
+                  AND severity = 'major' AND status <> 'closed') AS "openMajor",
+              (SELECT count(*) FROM finding_replies WHERE org_id = (SELECT id FROM o)
+                  AND kind = 'reply') AS replies,
+              (SELECT count(*) FROM signatures WHERE org_id = (SELECT id FROM o)) AS signatures,
+              (SELECT count(*) FROM signatures WHERE org_id = (SELECT id FROM o)
+                  AND superseded_at IS NOT NULL) AS superseded`,
     );
     expect(counts).toEqual({ openMajor: '1', replies: '1', signatures: '2', superseded: '1' });
 

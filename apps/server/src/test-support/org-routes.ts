@@ -118,6 +118,13 @@ export async function createOrgWorld(t: TestApp, actorRoles: Role[]): Promise<Or
   const reviewFindingId = await finding(inCheckWorksheetId);
   const closedFindingId = await finding(inCheckWorksheetId, 'closed');
   const modelId = await insertModelRow(t, fx.org.id, keeperId);
+  // The actor watches the checked worksheet, so that stopping to watch it is a change.
+  await inTransaction(t.sequelize, 'system', (tx) =>
+    tx.sequelize.query(
+      'INSERT INTO worksheet_watchers (org_id, worksheet_id, user_id) VALUES ($1, $2, $3)',
+      { bind: [fx.org.id, checkedWorksheetId, actorId], transaction: tx.transaction },
+    ),
+  );
   const attachmentId = await insertAttachmentRow(t, {
     orgId: fx.org.id,
     worksheetId,
@@ -578,7 +585,7 @@ export const orgRoutes: OrgRouteCase[] = [
     method: 'delete',
     action: 'read',
     subject: 'Worksheet',
-    path: (w) => `/worksheets/${w.assignedWorksheetId}/watchers/me`,
+    path: (w) => `/worksheets/${w.checkedWorksheetId}/watchers/me`,
     success: 200,
     namesObject: true,
   },
@@ -827,6 +834,11 @@ export async function orgSnapshot(t: TestApp, orgId: string) {
       t,
       `SELECT id, worksheet_id, finding_id, revision_letter, filename, size, sha256
          FROM attachments WHERE org_id = $1 ORDER BY id`,
+      [orgId],
+    ),
+    watchers: await systemRows(
+      t,
+      'SELECT worksheet_id, user_id FROM worksheet_watchers WHERE org_id = $1 ORDER BY worksheet_id, user_id',
       [orgId],
     ),
     auditHead: await systemRows(

@@ -6,9 +6,11 @@ import { useFindings } from '@/features/review/api/list-findings.ts';
 import { worksheetReviewKey } from '@/features/review/api/review-key.ts';
 import { ActionBar } from '@/features/review/components/action-bar.tsx';
 import { RaiseFindingDialog } from '@/features/review/components/raise-finding-dialog.tsx';
+import { CurrentRecordDownloads } from '@/features/review/components/record-downloads.tsx';
 import { ReviewPanel } from '@/features/review/components/review-panel.tsx';
 import { Reviewers, type Assignable } from '@/features/review/components/reviewers.tsx';
 import { RevisionSignatures } from '@/features/review/components/revision-signatures.tsx';
+import { WatchToggle } from '@/features/review/components/watch-toggle.tsx';
 import { staleNotice } from '@/features/review/components/workflow-copy.ts';
 import { useStepNotice } from '@/features/review/hooks/use-step-notice.ts';
 import { resultNumberAt, statusLabels } from '@/features/review/components/review-format.ts';
@@ -143,6 +145,14 @@ export function ReviewSlots({
         <TextLink to={orgPath(membership.orgSlug, `worksheets/${worksheet.id}/history`)}>
           History and differences
         </TextLink>
+      </div>
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <CurrentRecordDownloads
+          orgId={orgId}
+          worksheetId={worksheet.id}
+          letter={worksheet.revision}
+        />
+        <WatchToggle orgId={orgId} worksheetId={worksheet.id} userId={user.id} />
       </div>
     </div>
   );

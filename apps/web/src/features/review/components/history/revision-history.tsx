@@ -7,13 +7,24 @@ import { TextLink } from '@/components/ui/text-link.tsx';
 import { useRevisionDiff } from '@/features/review/api/get-revision-diff.ts';
 import { useRevisions } from '@/features/review/api/list-revisions.ts';
 import { RevisionDiffView } from '@/features/review/components/history/revision-diff-view.tsx';
+import { RecordDownloads } from '@/features/review/components/record-downloads.tsx';
 import { shortHash, stateWords } from '@/features/review/components/review-format.ts';
 import { SignatureManifest } from '@/features/review/components/signature-manifest.tsx';
 import { orgPath, useCurrentOrg } from '@/lib/current-org.tsx';
 import { useOrganization } from '@/lib/api/get-organization.ts';
 import { formatInZone } from '@/lib/org-time.ts';
 
-function RevisionCard({ revision, timeZone }: { revision: RevisionSummary; timeZone: string }) {
+function RevisionCard({
+  revision,
+  timeZone,
+  orgId,
+  worksheetId,
+}: {
+  revision: RevisionSummary;
+  timeZone: string;
+  orgId: string;
+  worksheetId: string;
+}) {
   const id = `revision-${revision.letter}`;
   return (
     <li>
@@ -48,6 +59,12 @@ function RevisionCard({ revision, timeZone }: { revision: RevisionSummary; timeZ
         {revision.signatures.map((s) => (
           <SignatureManifest key={s.id} signature={s} timeZone={timeZone} />
         ))}
+        <RecordDownloads
+          orgId={orgId}
+          worksheetId={worksheetId}
+          letter={revision.letter}
+          signed={revision.signatures.length > 0}
+        />
       </article>
     </li>
   );
@@ -111,7 +128,13 @@ export function RevisionHistory({
           </h2>
           <ol className="flex flex-col gap-3">
             {revisions.data.items.map((r) => (
-              <RevisionCard key={r.letter} revision={r} timeZone={timeZone} />
+              <RevisionCard
+                key={r.letter}
+                revision={r}
+                timeZone={timeZone}
+                orgId={orgId}
+                worksheetId={worksheetId}
+              />
             ))}
           </ol>
         </Card>

@@ -79,9 +79,9 @@ describe('results views', () => {
     );
     expect(document.activeElement).toBe(screen.getByRole('tab', { name: 'Small-signal' }));
     await user.keyboard('{End}');
-    expect(screen.getByRole('tab', { name: 'Load line' }).getAttribute('aria-selected')).toBe(
-      'true',
-    );
+    expect(
+      screen.getByRole('tab', { name: 'Limits and checks' }).getAttribute('aria-selected'),
+    ).toBe('true');
     await user.keyboard('{ArrowRight}');
     expect(screen.getByRole('tab', { name: 'Bias point' }).getAttribute('aria-selected')).toBe(
       'true',

@@ -1,6 +1,7 @@
 import { useCallback, useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { worksheetStates, type WorksheetListQuery, type WorksheetState } from '@biasproof/shared';
+import type { WorksheetExportQuery } from '@/features/worksheets/api/export-worksheets-csv.ts';
 
 /** Rows per page of the worksheet lists. */
 export const PAGE_SIZE = 25;
@@ -75,8 +76,8 @@ export function useListParams(fixedProjectId?: string) {
   return { params, update };
 }
 
-/** The API query for the list's settings (`me` as author means the signed-in person). */
-export function toListQuery(params: ListParams, userId: string): WorksheetListQuery {
+/** The list's filters and sort as the API reads them (`me` as author means the signed-in person). */
+export function toExportQuery(params: ListParams, userId: string): WorksheetExportQuery {
   return {
     ...(params.projectId ? { projectId: params.projectId } : {}),
     ...(params.state ? { state: params.state } : {}),
@@ -85,6 +86,13 @@ export function toListQuery(params: ListParams, userId: string): WorksheetListQu
     ...(params.q ? { q: params.q } : {}),
     sort: params.sort,
     dir: params.dir,
+  };
+}
+
+/** The API query for the page of the list on screen. */
+export function toListQuery(params: ListParams, userId: string): WorksheetListQuery {
+  return {
+    ...toExportQuery(params, userId),
     limit: PAGE_SIZE,
     offset: (params.page - 1) * PAGE_SIZE,
   };

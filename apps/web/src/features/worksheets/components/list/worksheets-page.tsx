@@ -9,9 +9,11 @@ import { ErrorMessage } from '@/components/ui/message.tsx';
 import { Pagination } from '@/components/ui/pagination.tsx';
 import { SkeletonRows } from '@/components/ui/skeleton-rows.tsx';
 import { TextLink } from '@/components/ui/text-link.tsx';
+import { worksheetsExportUrl } from '@/features/worksheets/api/export-worksheets-csv.ts';
 import { useWorksheets } from '@/features/worksheets/api/list-worksheets.ts';
 import {
   PAGE_SIZE,
+  toExportQuery,
   toListQuery,
   useListParams,
   type ListParams,
@@ -164,6 +166,16 @@ export function WorksheetsPage() {
           authors={authors}
           userId={user.id}
         />
+        <p className="flex flex-wrap items-baseline justify-end gap-x-2 text-xs text-ink-600">
+          <a
+            href={worksheetsExportUrl(membership.orgId, toExportQuery(params, user.id))}
+            download
+            className="rounded-md border border-ink-500 bg-surface px-2.5 py-1 text-sm font-semibold text-ink-900 hover:bg-paper focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-accent"
+          >
+            Download CSV
+          </a>
+          every worksheet matching these filters, in this order, all pages
+        </p>
         <div aria-busy={list.isFetching}>{body}</div>
       </Card>
     </div>

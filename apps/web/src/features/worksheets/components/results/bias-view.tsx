@@ -102,6 +102,7 @@ export function BiasView({
 
       <ResultTable
         title="Node voltages"
+        storedCsv="bias"
         columns={['Node', 'Voltage']}
         rows={nodeRows}
         note="Against ground (node 0)."
@@ -110,6 +111,7 @@ export function BiasView({
       {diodes.length > 0 ? (
         <ResultTable
           title="Diodes"
+          storedCsv="devices"
           columns={['Diode', 'Region', 'ID', 'VD', 'rd', 'Power']}
           rows={diodes.map(([n, d]) => ({
             key: n,
@@ -128,6 +130,7 @@ export function BiasView({
       {bjts.length > 0 ? (
         <ResultTable
           title="Bipolar transistors"
+          storedCsv="devices"
           columns={['Transistor', 'Region', 'IC', 'IB', 'VBE', 'VCE', 'β (IC/IB)', 'Power']}
           rows={bjts.map(([n, q]) => ({
             key: n,
@@ -148,6 +151,7 @@ export function BiasView({
       {mosfets.length > 0 ? (
         <ResultTable
           title="MOSFETs"
+          storedCsv="devices"
           columns={['MOSFET', 'Region', 'ID', 'VGS', 'VDS', 'VTH', 'Power']}
           rows={mosfets.map(([n, m]) => ({
             key: n,
@@ -166,6 +170,7 @@ export function BiasView({
       {sources.length > 0 ? (
         <ResultTable
           title="Sources"
+          storedCsv="bias"
           columns={['Source', 'Current', 'Power absorbed']}
           rows={sources.map((s) => {
             const n = s.name.toLowerCase();
@@ -188,6 +193,7 @@ export function BiasView({
       {passives.length > 0 ? (
         <ResultTable
           title="Resistors, capacitors and inductors"
+          storedCsv="bias"
           columns={['Element', 'Current', 'Power']}
           rows={passives.map((p) => {
             const n = p.name.toLowerCase();

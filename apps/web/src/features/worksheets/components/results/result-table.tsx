@@ -2,6 +2,8 @@ import { useId, useState, type ReactNode } from 'react';
 import { Button } from '@/components/ui/button.tsx';
 import { CellContent } from '@/features/worksheets/components/results/result-cells.tsx';
 import { toCsv, type ResultRow } from '@/features/worksheets/components/results/result-csv.ts';
+import { StoredCsvLink } from '@/features/worksheets/components/results/stored-csv.tsx';
+import type { StoredResultsTable } from '@/features/worksheets/api/results-csv-url.ts';
 
 interface ResultTableProps {
   title: string;
@@ -9,6 +11,8 @@ interface ResultTableProps {
   rows: readonly ResultRow[];
   /** Short text under the title. */
   note?: ReactNode;
+  /** The server's CSV table holding these rows, offered while the results are stored ones. */
+  storedCsv?: StoredResultsTable | undefined;
 }
 
 // No uppercase: result headings hold symbols (β, rπ) whose capitals read as other letters.
@@ -16,7 +20,7 @@ const head = 'px-2 py-1.5 text-left text-xs font-semibold text-ink-600';
 const cell = 'px-2 py-1.5 text-sm text-ink-900';
 
 /** A titled table of results whose first column names the row; copyable as CSV. */
-export function ResultTable({ title, columns, rows, note }: ResultTableProps) {
+export function ResultTable({ title, columns, rows, note, storedCsv }: ResultTableProps) {
   const id = useId();
   const [copied, setCopied] = useState<string | null>(null);
 
@@ -36,14 +40,17 @@ export function ResultTable({ title, columns, rows, note }: ResultTableProps) {
         <h3 id={`${id}-title`} className="text-sm font-bold text-ink-900">
           {title}
         </h3>
-        <Button
-          size="sm"
-          variant="quiet"
-          aria-label={`Copy “${title}” as CSV`}
-          onClick={() => void copy()}
-        >
-          Copy as CSV
-        </Button>
+        <div className="flex flex-wrap items-baseline gap-1">
+          <Button
+            size="sm"
+            variant="quiet"
+            aria-label={`Copy “${title}” as CSV`}
+            onClick={() => void copy()}
+          >
+            Copy as CSV
+          </Button>
+          {storedCsv ? <StoredCsvLink table={storedCsv} /> : null}
+        </div>
       </div>
       {note ? <p className="-mt-1 text-xs text-ink-600">{note}</p> : null}
       <div className="overflow-x-auto rounded-md border border-rule">

@@ -5,6 +5,7 @@ import { EngineErrorNotice } from '@/features/worksheets/components/results/engi
 import { LoadLineView } from '@/features/worksheets/components/results/load-line-view.tsx';
 import { SignalSizeView } from '@/features/worksheets/components/results/signal-size-view.tsx';
 import { SmallSignalView } from '@/features/worksheets/components/results/small-signal-view.tsx';
+import { StoredCsvProvider } from '@/features/worksheets/components/results/stored-csv.tsx';
 import { LimitsView } from '@/features/worksheets/components/variation/limits-view.tsx';
 import { useMonteCarloRun } from '@/features/worksheets/components/variation/use-monte-carlo-run.ts';
 import type { VariationEditing } from '@/features/worksheets/components/variation/variation-draft.ts';
@@ -160,7 +161,13 @@ export function ResultsPanel({
   return (
     <div className="flex flex-col gap-4">
       <OriginLine live={live} origin={origin} pendingNote={pendingNote} storedFrom={storedFrom} />
-      <div aria-busy={live.computing}>{body}</div>
+      <div aria-busy={live.computing}>
+        {origin === 'stored' && storedFrom ? (
+          <StoredCsvProvider letter={storedFrom.letter}>{body}</StoredCsvProvider>
+        ) : (
+          body
+        )}
+      </div>
       <p className="border-t border-rule pt-3 text-xs text-ink-600">
         <strong className="font-semibold text-ink-700">Caution:</strong> these results are
         engineering aids, not a substitute for qualified review. Circuits with hazardous voltages

@@ -44,6 +44,7 @@ function DeviceParameters({
       {diodes.length > 0 ? (
         <ResultTable
           title="Diode parameters at Q"
+          storedCsv="devices"
           columns={['Diode', 'rd', 'RS']}
           rows={diodes.map(([n, d]) => ({
             key: n,
@@ -54,6 +55,7 @@ function DeviceParameters({
       {bjts.length > 0 ? (
         <ResultTable
           title="Bipolar transistor parameters at Q"
+          storedCsv="devices"
           columns={['Transistor', 'gm', 'rπ', 'ro', 'β (ac)']}
           rows={bjts.map(([n, q]) => ({
             key: n,
@@ -70,6 +72,7 @@ function DeviceParameters({
       {mosfets.length > 0 ? (
         <ResultTable
           title="MOSFET parameters at Q"
+          storedCsv="devices"
           columns={['MOSFET', 'gm', 'gmb', 'ro']}
           rows={mosfets.map(([n, m]) => ({
             key: n,
@@ -138,6 +141,7 @@ export function SmallSignalView({
     figures = (
       <ResultTable
         title={`At ${formatValue(s.frequency, 'Hz')}`}
+        storedCsv="small-signal"
         columns={['Quantity', 'Magnitude', 'dB', 'Phase']}
         rows={rows}
         note="Zin is what the input source sees; Zout is seen at the output node with the input source zeroed."
@@ -157,6 +161,7 @@ export function SmallSignalView({
       <>
         <ResultTable
           title="Frequency response"
+          storedCsv="sweep"
           columns={['Quantity', 'Value']}
           rows={[
             {

@@ -5,12 +5,13 @@ import {
   HandCheckForm,
   LimitForm,
 } from '@/features/worksheets/components/variation/check-forms.tsx';
-import {
-  HandCheckTable,
-  LimitTable,
-} from '@/features/worksheets/components/variation/check-tables.tsx';
+import { HandCheckTable } from '@/features/worksheets/components/variation/hand-check-table.tsx';
+import { LimitTable } from '@/features/worksheets/components/variation/limit-table.tsx';
 import { shownMonteCarlo } from '@/features/worksheets/components/variation/shown-monte-carlo.ts';
-import type { MonteCarloRun } from '@/features/worksheets/components/variation/use-monte-carlo-run.ts';
+import {
+  useMonteCarloState,
+  type MonteCarloRun,
+} from '@/features/worksheets/components/variation/use-monte-carlo-run.ts';
 import {
   variationEdit,
   variationOf,
@@ -46,7 +47,8 @@ export function LimitsView({
   const paths = useMemo(() => knownResultPaths(results), [results]);
   const [open, setOpen] = useState<OpenForm>(null);
   const computed = results.variation;
-  const shown = shownMonteCarlo(draft, computed, monteCarlo.state);
+  const runState = useMonteCarloState(monteCarlo);
+  const shown = shownMonteCarlo(draft, computed, runState);
 
   // The results may still be those of the draft before the last edit: pair by content, not index.
   const reports = v.limits.map((l, i) => {

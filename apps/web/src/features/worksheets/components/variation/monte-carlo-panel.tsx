@@ -11,7 +11,10 @@ import { ErrorMessage } from '@/components/ui/message.tsx';
 import { TextField } from '@/components/ui/text-field.tsx';
 import { MonteCarloResults } from '@/features/worksheets/components/variation/monte-carlo-results.tsx';
 import { shownMonteCarlo } from '@/features/worksheets/components/variation/shown-monte-carlo.ts';
-import type { MonteCarloRun } from '@/features/worksheets/components/variation/use-monte-carlo-run.ts';
+import {
+  useMonteCarloState,
+  type MonteCarloRun,
+} from '@/features/worksheets/components/variation/use-monte-carlo-run.ts';
 import {
   followedPaths,
   monteCarloKey,
@@ -90,7 +93,7 @@ export function MonteCarloPanel({
       seed: String(recorded.seed),
     },
   });
-  const { state } = run;
+  const state = useMonteCarloState(run);
   const running = state.status === 'running';
   const shown = shownMonteCarlo(draft, results, state);
 
@@ -168,7 +171,12 @@ export function MonteCarloPanel({
         <ErrorMessage>The Monte Carlo run stopped: {state.message}</ErrorMessage>
       ) : null}
       {shown ? (
-        <MonteCarloResults shown={shown} limits={v.limits} shownPath={shownPath} />
+        <MonteCarloResults
+          result={shown.result}
+          origin={shown.origin}
+          limits={v.limits}
+          shownPath={shownPath}
+        />
       ) : recorded.samples > STORED_MONTE_CARLO_SAMPLES && !running ? (
         <p className="rounded-md border border-dashed border-ink-300 px-4 py-4 text-sm text-ink-700">
           This worksheet records a run of {recorded.samples} samples with seed “

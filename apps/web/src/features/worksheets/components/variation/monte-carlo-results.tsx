@@ -1,4 +1,5 @@
 import type { Limit } from '@biasproof/calc';
+import { memo } from 'react';
 import { ResultNumber } from '@/features/worksheets/components/results/result-cells.tsx';
 import type { ResultRow } from '@/features/worksheets/components/results/result-csv.ts';
 import { ResultTable } from '@/features/worksheets/components/results/result-table.tsx';
@@ -16,18 +17,20 @@ const statistics = [
   ['p99865', '99.865 %'],
 ] as const;
 
-/** A Monte Carlo result: yield, samples that did not solve, statistics and the histogram. */
-export function MonteCarloResults({
-  shown,
+/**
+ * A Monte Carlo result: yield, samples that did not solve, statistics and the histogram.
+ * Memoized: a new run's progress re-renders the panel around it many times a second.
+ */
+export const MonteCarloResults = memo(function MonteCarloResults({
+  result,
+  origin,
   limits,
   shownPath,
-}: {
-  shown: ShownMonteCarlo;
+}: ShownMonteCarlo & {
   limits: readonly Limit[];
   /** The result whose histogram is drawn. */
   shownPath: string;
 }) {
-  const { result } = shown;
   const paths = Object.keys(result.probes);
   const histogramPath = result.probes[shownPath] ? shownPath : paths[0];
   const summary = histogramPath ? result.probes[histogramPath] : undefined;
@@ -58,7 +61,7 @@ export function MonteCarloResults({
   return (
     <div className="flex flex-col gap-3" data-testid="monte-carlo-result">
       <p className="text-sm text-ink-700">
-        {shown.origin === 'run' ? 'Run in this browser' : 'From the worksheet’s results'}:{' '}
+        {origin === 'run' ? 'Run in this browser' : 'From the worksheet’s results'}:{' '}
         <span data-result-path="variation.monteCarlo.samples">{result.samples}</span> samples, seed
         “<span data-result-path="variation.monteCarlo.seed">{result.seed}</span>”, at{' '}
         {result.temperature} °C.
@@ -119,4 +122,4 @@ export function MonteCarloResults({
       ) : null}
     </div>
   );
-}
+});

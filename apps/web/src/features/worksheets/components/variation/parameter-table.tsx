@@ -4,7 +4,7 @@ import {
   newParameterRow,
   type SetupFormValues,
   type SetupValues,
-} from '@/features/worksheets/components/variation/setup-form-schema.ts';
+} from '@/features/worksheets/components/variation/setup-form-values.ts';
 import {
   CellInput,
   CellSelect,

@@ -5,7 +5,7 @@ import {
   ratingFields,
   type SetupFormValues,
   type SetupValues,
-} from '@/features/worksheets/components/variation/setup-form-schema.ts';
+} from '@/features/worksheets/components/variation/setup-form-values.ts';
 import {
   CellInput,
   CellSelect,

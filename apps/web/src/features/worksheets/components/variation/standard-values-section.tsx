@@ -142,7 +142,7 @@ export function StandardValuesSection({
       </div>
       {paths.length > 0 ? (
         <ResultTable
-          title="Results with every resistor at its series value"
+          title="With every resistor at its series value"
           columns={['Result', 'Now', ...series.flatMap((s) => [s, `${s} change`])]}
           rows={recomputedRows}
         />

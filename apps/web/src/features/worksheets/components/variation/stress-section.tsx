@@ -63,7 +63,7 @@ export function StressSection({
   return (
     <>
       <ResultTable
-        title="Part stress"
+        title="Stress against the derated ratings"
         columns={['Part', 'Quantity', 'Stress', 'Rating', 'Allowed', 'Use of rating', 'Status']}
         rows={rows}
         note={`Allowed = derating factor × rating (${policy.name}); junction temperature = ambient ${stress.ambient} °C + θJA·P.`}

@@ -27,7 +27,7 @@ export function TemperatureTable({ sweep }: { sweep: TemperatureSweepResult }) {
   }));
   return (
     <ResultTable
-      title="Results over temperature"
+      title="Values over temperature"
       columns={['Temperature', ...sweep.probes]}
       rows={rows}
       note="Parameters at nominal, scaled by their tempcos; devices scale as SPICE scales them (IS with XTI and EG, VT, β with XTB)."
@@ -92,7 +92,7 @@ export function CornersTable({
     corners.failed > 0 ? ` ${corners.failed} corners did not solve and are left out.` : '';
   return (
     <ResultTable
-      title="Corners"
+      title="Lowest and highest over the corners"
       columns={['Result', 'Nominal', 'Min', 'Min at', 'Max', 'Max at']}
       rows={rows}
       note={`${method}${failed} Parameters are listed most influential first.`}

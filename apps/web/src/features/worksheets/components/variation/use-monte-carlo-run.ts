@@ -1,5 +1,5 @@
 import type { MonteCarloResult, WorksheetDraft } from '@biasproof/calc';
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useRef, useState, useSyncExternalStore, type RefObject } from 'react';
 import type { MonteCarloRequest } from '@/features/worksheets/compute/monte-carlo-messages.ts';
 import {
   defaultMonteCarloRunner,
@@ -18,7 +18,6 @@ export type MonteCarloRunState =
   | { status: 'failed'; message: string };
 
 export interface MonteCarloRun {
-  state: MonteCarloRunState;
   /**
    * Starts a run (stopping one still going). `onComplete` gets the result and the draft as it is
    * when the run ends, even if the view that started the run has closed, and answers whether
@@ -30,6 +29,70 @@ export interface MonteCarloRun {
     onComplete: (result: MonteCarloResult, draftNow: WorksheetDraft) => boolean,
   ) => void;
   cancel: () => void;
+  subscribe: (listener: () => void) => () => void;
+  getState: () => MonteCarloRunState;
+}
+
+/** The run as a small store: progress reaches only the components that read it. */
+function createRunStore(
+  createRunner: () => MonteCarloRunner,
+  latestDraft: RefObject<WorksheetDraft>,
+): MonteCarloRun & { dispose: () => void } {
+  let state: MonteCarloRunState = { status: 'idle' };
+  const listeners = new Set<() => void>();
+  const set = (next: MonteCarloRunState) => {
+    state = next;
+    for (const listener of listeners) listener();
+  };
+  let runner: MonteCarloRunner | null = null;
+  /** The run whose news is shown; answers of a run that was replaced are ignored. */
+  let current: { handle: MonteCarloHandle | null } | null = null;
+
+  return {
+    getState: () => state,
+    subscribe(listener) {
+      listeners.add(listener);
+      return () => listeners.delete(listener);
+    },
+    start(request, key, onComplete) {
+      current?.handle?.cancel();
+      runner ??= createRunner();
+      set({ status: 'running', done: 0, total: request.samples, failed: 0 });
+      // The engine may report its first chunk before run() returns: the run is current already.
+      const run: { handle: MonteCarloHandle | null } = { handle: null };
+      current = run;
+      run.handle = runner.run(request, (p) => {
+        if (current === run)
+          set({ status: 'running', done: p.done, total: p.total, failed: p.failed });
+      });
+      run.handle.result.then(
+        (result) => {
+          if (current !== run) return;
+          current = null;
+          if (result.status === 'cancelled') {
+            set({ status: 'cancelled', done: result.samples, total: result.requested });
+            return;
+          }
+          const belongs = onComplete(result, latestDraft.current);
+          set(belongs ? { status: 'complete', key, result } : { status: 'stale' });
+        },
+        (error: unknown) => {
+          if (current !== run) return;
+          current = null;
+          set({
+            status: 'failed',
+            message: error instanceof Error ? error.message : String(error),
+          });
+        },
+      );
+    },
+    cancel: () => current?.handle?.cancel(),
+    dispose() {
+      current = null;
+      runner?.dispose();
+      runner = null;
+    },
+  };
 }
 
 /**
@@ -44,57 +107,12 @@ export function useMonteCarloRun(
   useEffect(() => {
     latestDraft.current = draft;
   }, [draft]);
-  const runner = useRef<MonteCarloRunner | null>(null);
-  /** The run whose news is shown; answers of a run that was replaced are ignored. */
-  const current = useRef<{ handle: MonteCarloHandle | null } | null>(null);
-  const [state, setState] = useState<MonteCarloRunState>({ status: 'idle' });
+  const [store] = useState(() => createRunStore(createRunner, latestDraft));
+  useEffect(() => () => store.dispose(), [store]);
+  return store;
+}
 
-  useEffect(
-    () => () => {
-      current.current = null;
-      runner.current?.dispose();
-      runner.current = null;
-    },
-    [],
-  );
-
-  const start = useCallback<MonteCarloRun['start']>(
-    (request, key, onComplete) => {
-      current.current?.handle?.cancel();
-      runner.current ??= createRunner();
-      setState({ status: 'running', done: 0, total: request.samples, failed: 0 });
-      // The engine may report its first chunk before run() returns: the run is current already.
-      const run: { handle: MonteCarloHandle | null } = { handle: null };
-      current.current = run;
-      const handle = runner.current.run(request, (p) => {
-        if (current.current === run)
-          setState({ status: 'running', done: p.done, total: p.total, failed: p.failed });
-      });
-      run.handle = handle;
-      handle.result.then(
-        (result) => {
-          if (current.current !== run) return;
-          current.current = null;
-          if (result.status === 'cancelled') {
-            setState({ status: 'cancelled', done: result.samples, total: result.requested });
-            return;
-          }
-          const belongs = onComplete(result, latestDraft.current);
-          setState(belongs ? { status: 'complete', key, result } : { status: 'stale' });
-        },
-        (error: unknown) => {
-          if (current.current !== run) return;
-          current.current = null;
-          setState({
-            status: 'failed',
-            message: error instanceof Error ? error.message : String(error),
-          });
-        },
-      );
-    },
-    [createRunner],
-  );
-
-  const cancel = useCallback(() => current.current?.handle?.cancel(), []);
-  return useMemo(() => ({ state, start, cancel }), [state, start, cancel]);
+/** The run's state; re-renders the caller on each progress report. */
+export function useMonteCarloState(run: MonteCarloRun): MonteCarloRunState {
+  return useSyncExternalStore(run.subscribe, run.getState);
 }

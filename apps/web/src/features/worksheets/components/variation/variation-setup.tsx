@@ -6,14 +6,14 @@ import { useForm, useWatch } from 'react-hook-form';
 import { TextField } from '@/components/ui/text-field.tsx';
 import { ParameterTable } from '@/features/worksheets/components/variation/parameter-table.tsx';
 import { RatingTable } from '@/features/worksheets/components/variation/rating-table.tsx';
+import { setupFormSchema } from '@/features/worksheets/components/variation/setup-form-schema.ts';
 import {
   sameSetup,
-  setupFormSchema,
   setupFormValues,
   setupOf,
   type SetupFormValues,
   type SetupValues,
-} from '@/features/worksheets/components/variation/setup-form-schema.ts';
+} from '@/features/worksheets/components/variation/setup-form-values.ts';
 import {
   variationEdit,
   variationOf,
@@ -150,7 +150,7 @@ export function VariationSetup({
           )}
         </Section>
 
-        <Section title="Results to follow">
+        <Section title="Followed results">
           <TextField
             label="Other result paths"
             hint="Separated by commas, e.g. nodes.out, devices.q1.ic. The paths of limits and hand checks are followed anyway."

@@ -39,7 +39,11 @@ describe('Monte Carlo in the variation view', () => {
     await user.click(within(run).getByRole('button', { name: 'Run Monte Carlo' }));
 
     expect(
-      await within(view).findByRole('img', { name: /^Histogram of nodes\.out: 600 samples/ }, { timeout: 20_000 }),
+      await within(view).findByRole(
+        'img',
+        { name: /^Histogram of nodes\.out: 600 samples/ },
+        { timeout: 20_000 },
+      ),
     ).toBeDefined();
     expect(seen.length).toBeGreaterThan(3);
     expect(seen).toEqual([...seen].sort((a, b) => a - b));
@@ -80,7 +84,10 @@ describe('Monte Carlo in the variation view', () => {
     await user.click(within(run).getByRole('button', { name: 'Run Monte Carlo' }));
     const bar = await within(view).findByRole('progressbar', { name: 'Monte Carlo progress' });
     await waitFor(() => expect(Number(bar.getAttribute('aria-valuenow'))).toBeGreaterThan(0));
-    expect(within(run).getByRole('button', { name: 'Run Monte Carlo' })).toHaveProperty('disabled', true);
+    expect(within(run).getByRole('button', { name: 'Run Monte Carlo' })).toHaveProperty(
+      'disabled',
+      true,
+    );
     await user.click(within(run).getByRole('button', { name: 'Cancel' }));
 
     const status = await within(view).findByText(/^Cancelled after \d+ of 100000 samples/);

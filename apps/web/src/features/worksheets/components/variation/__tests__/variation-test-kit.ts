@@ -8,10 +8,7 @@ import {
 import type { User } from '@/features/worksheets/components/__tests__/worksheet-test-kit.tsx';
 
 /** A 10 V supply across two 10 kΩ resistors: Vout = V·R2/(R1 + R2) = 5 V (divider formula). */
-export function divider(
-  variation?: WorksheetVariationInput,
-  r1 = 10_000,
-): WorksheetDraft {
+export function divider(variation?: WorksheetVariationInput, r1 = 10_000): WorksheetDraft {
   return {
     circuit: {
       title: 'Reference divider',

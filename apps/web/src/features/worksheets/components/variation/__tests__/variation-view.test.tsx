@@ -31,7 +31,9 @@ describe('the variation view', () => {
     // Divider at its corners: 10 V · 9.9k / (10.1k + 9.9k) = 4.95 V and 5.05 V (hand calculation).
     await waitFor(() => expect(resultText('variation.corners.nodes.out.min')).toBe('4.95 V'));
     expect(resultText('variation.corners.nodes.out.max')).toBe('5.05 V');
-    const corners = within(view).getByRole('table', { name: 'Corners' });
+    const corners = within(view).getByRole('table', {
+      name: 'Lowest and highest over the corners',
+    });
     expect(within(corners).getByRole('row', { name: /^nodes\.out/ }).textContent).toContain(
       'R1 high, R2 low',
     );
@@ -48,7 +50,11 @@ describe('the variation view', () => {
     );
     expect(resultText('variation.temperatures.27.nodes.out')).toBe('5 V');
     expect(
-      await within(view).findByRole('img', { name: /Normalized sensitivities of nodes\.out/ }, { timeout: 10_000 }),
+      await within(view).findByRole(
+        'img',
+        { name: /Normalized sensitivities of nodes\.out/ },
+        { timeout: 10_000 },
+      ),
     ).toBeDefined();
   });
 
@@ -66,7 +72,9 @@ describe('the variation view', () => {
     // derating, NASA EEE-INST-002 as the policy quotes it) and 4 mW: warn. P(R2) ≈ 2.45 mW > 2 mW: fail.
     await waitFor(() => expect(resultText('variation.stress.r2.power.status')).toBe('✗ Fail'));
     expect(resultText('variation.stress.r1.power.status')).toBe('⚠ Warn');
-    expect(resultText('variation.stress.r1.power')).toBe(formatValue((10 / 20_200) ** 2 * 10_200, 'W'));
+    expect(resultText('variation.stress.r1.power')).toBe(
+      formatValue((10 / 20_200) ** 2 * 10_200, 'W'),
+    );
 
     // IEC 60063: 10.2 kΩ is an E96 value; the nearest E24 value is 10 kΩ.
     expect(resultText('variation.standardValues.r1.E24')).toBe('10 kΩ');
