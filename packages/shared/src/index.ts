@@ -18,3 +18,4 @@ export * from './api/history.ts';
 export * from './api/attachments.ts';
 export * from './api/notifications.ts';
 export * from './revision-diff.ts';
+export * from './api/records.ts';

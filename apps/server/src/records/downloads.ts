@@ -5,7 +5,8 @@ import { recordBaseName } from './format.ts';
 import { loadRecord, recordMoment, type RecordData } from './record-data.ts';
 import { renderReport } from './report/render-report.ts';
 import { packageFiles, sha256Hex, zipPackage } from './package/record-package.ts';
-import { resultsCsv, type ResultTable } from './csv/results-csv.ts';
+import type { ResultTable } from '@biasproof/shared';
+import { resultsCsv } from './csv/results-csv.ts';
 
 export interface Download {
   filename: string;

@@ -1,11 +1,10 @@
 import { Router, type RequestHandler, type Response } from 'express';
-import { idSchema, revisionLetterSchema } from '@biasproof/shared';
+import { idSchema, resultsCsvQuerySchema, revisionLetterSchema } from '@biasproof/shared';
 import type { Services } from '../services.ts';
 import { requireUser, signedInUser } from '../auth/require-user.ts';
 import { authorize, orgContextOf, orgScope } from '../orgs/org-scope.ts';
 import { noSuchRevision } from './record-data.ts';
 import { downloadPackage, downloadReport, downloadResultsCsv, type Download } from './downloads.ts';
-import { resultsCsvQuerySchema } from './csv/results-csv.ts';
 import { worksheetExportQuerySchema, worksheetsCsv } from './csv/worksheets-csv.ts';
 
 /** A malformed worksheet id or revision letter names nothing: 404, like another organization's. */

@@ -4,18 +4,10 @@ import {
   type DeviceSmallSignal,
   type SolvedWorksheet,
 } from '@biasproof/calc';
-import { z } from 'zod';
+import type { ResultTable } from '@biasproof/shared';
 import { AppError } from '../../errors/app-error.ts';
 import type { RecordData } from '../record-data.ts';
 import { toCsv, type CsvValue } from './csv.ts';
-
-/** The results tables, named after the worksheet's result views. */
-export const resultTables = ['bias', 'devices', 'small-signal', 'sweep'] as const;
-export type ResultTable = (typeof resultTables)[number];
-
-export const resultsCsvQuerySchema = z.object({
-  table: z.enum(resultTables, `Choose table=${resultTables.join(', ')}.`),
-});
 
 const unavailable = (what: string, why: string) =>
   new AppError('unprocessable', `This revision has no ${what}: ${why}`);

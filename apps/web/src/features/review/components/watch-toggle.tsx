@@ -41,14 +41,14 @@ export function WatchToggle({
   const failure = start.error ?? stop.error;
 
   if (watchers.isError) {
-    return (
-      <ErrorMessage>The watchers could not be loaded: {watchers.error.message}</ErrorMessage>
-    );
+    return <ErrorMessage>The watchers could not be loaded: {watchers.error.message}</ErrorMessage>;
   }
   if (!watchers.data) return null;
   const { watching } = watchers.data;
   const others = watchers.data.watchers.filter((p) => p.id !== userId);
   const toggle = () => {
+    // Not disabled while busy: a disabled button would drop the keyboard focus.
+    if (busy) return;
     start.reset();
     stop.reset();
     if (watching) stop.mutate();
@@ -63,7 +63,7 @@ export function WatchToggle({
           variant={watching ? 'primary' : 'outline'}
           aria-pressed={watching}
           aria-describedby={`${id}-who`}
-          disabled={busy}
+          aria-busy={busy}
           onClick={toggle}
         >
           <span aria-hidden="true" className="mr-1">

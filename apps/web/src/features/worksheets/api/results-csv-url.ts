@@ -1,10 +1,8 @@
+import type { ResultTable } from '@biasproof/shared';
 import { appConfig } from '@/config/app-config.ts';
 
-/**
- * The stored results tables the server writes as CSV (`?table=` of results.csv): node voltages,
- * element currents and powers; diodes and transistors; gain and impedances; the sweep's points.
- */
-export type StoredResultsTable = 'bias' | 'devices' | 'small-signal' | 'sweep';
+/** The stored results tables the server writes as CSV (`?table=` of results.csv). */
+export type StoredResultsTable = ResultTable;
 
 /**
  * GET /api/orgs/:orgId/worksheets/:id/revisions/:letter/results.csv?table=…: one table of the

@@ -66,6 +66,8 @@ interface ServerOptions {
   findings?: Finding[];
   signatures?: Signature[];
   checker?: { id: string; name: string } | null;
+  /** Who watches the worksheet (receives its signed e-mail). */
+  watchers?: { id: string; name: string }[];
   /** Overrides a route (e.g. a stale version once). */
   routes?: FakeRoutes;
 }
@@ -101,6 +103,7 @@ export function reviewServer({
   findings: startFindings = [],
   signatures: startSignatures = [],
   checker = people.checker,
+  watchers: startWatchers = [],
   routes = {},
 }: ServerOptions) {
   const me = people[as];
@@ -114,7 +117,12 @@ export function reviewServer({
     findings: [...startFindings],
     signatures: [...startSignatures],
     attachments: [] as Attachment[],
+    watchers: [...startWatchers],
   };
+  const watchersAnswer = () => ({
+    status: 200,
+    body: { watching: s.watchers.some((w) => w.id === me.id), watchers: s.watchers },
+  });
   const openMajor = () =>
     s.findings.filter((f) => f.severity === 'major' && f.status !== 'closed').length;
   const view = () => ({
@@ -292,6 +300,15 @@ export function reviewServer({
       replies: [...f.replies, reply('reply', text)],
     })),
     [`GET ${base}/worksheets/:id/signatures`]: () => ({ status: 200, body: list(s.signatures) }),
+    [`GET ${base}/worksheets/:id/watchers`]: watchersAnswer,
+    [`PUT ${base}/worksheets/:id/watchers/me`]: () => {
+      if (!s.watchers.some((w) => w.id === me.id)) s.watchers.push(me);
+      return watchersAnswer();
+    },
+    [`DELETE ${base}/worksheets/:id/watchers/me`]: () => {
+      s.watchers = s.watchers.filter((w) => w.id !== me.id);
+      return watchersAnswer();
+    },
     [`GET ${base}/worksheets/:id/attachments`]: () => ({ status: 200, body: list(s.attachments) }),
     [`POST ${base}/worksheets/:id/attachments`]: () => {
       // The multipart body is the FormData the page handed to fetch.

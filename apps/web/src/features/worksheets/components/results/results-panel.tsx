@@ -162,11 +162,9 @@ export function ResultsPanel({
     <div className="flex flex-col gap-4">
       <OriginLine live={live} origin={origin} pendingNote={pendingNote} storedFrom={storedFrom} />
       <div aria-busy={live.computing}>
-        {origin === 'stored' && storedFrom ? (
-          <StoredCsvProvider letter={storedFrom.letter}>{body}</StoredCsvProvider>
-        ) : (
-          body
-        )}
+        <StoredCsvProvider letter={origin === 'stored' ? (storedFrom?.letter ?? null) : null}>
+          {body}
+        </StoredCsvProvider>
       </div>
       <p className="border-t border-rule pt-3 text-xs text-ink-600">
         <strong className="font-semibold text-ink-700">Caution:</strong> these results are

@@ -1,4 +1,4 @@
-import { createContext, useContext, useMemo, type ReactNode } from 'react';
+import { createContext, useContext, type ReactNode } from 'react';
 import { useParams } from 'react-router-dom';
 import {
   resultsCsvUrl,
@@ -6,27 +6,22 @@ import {
 } from '@/features/worksheets/api/results-csv-url.ts';
 import { useCurrentOrg } from '@/lib/current-org.tsx';
 
-interface StoredRevision {
-  orgId: string;
-  worksheetId: string;
-  letter: string;
-}
-
-/** Set only while the numbers on screen are a revision's stored ones (not a local preview). */
-const StoredRevisionContext = createContext<StoredRevision | null>(null);
+/** The revision letter while the numbers on screen are its stored ones; null for a local preview. */
+const StoredLetterContext = createContext<string | null>(null);
 
 /**
- * Marks the results below as the stored results of revision `letter` of the worksheet page
- * (`worksheets/:worksheetId`), so that their tables offer the server's CSV of that revision.
+ * Says whose stored results the tables below show, so that they offer the server's CSV of that
+ * revision. Always rendered (null for a preview): switching between the two must not remount
+ * the views and lose what is being typed in them.
  */
-export function StoredCsvProvider({ letter, children }: { letter: string; children: ReactNode }) {
-  const { orgId } = useCurrentOrg().membership;
-  const { worksheetId } = useParams();
-  const value = useMemo(
-    () => (worksheetId ? { orgId, worksheetId, letter } : null),
-    [orgId, worksheetId, letter],
-  );
-  return <StoredRevisionContext value={value}>{children}</StoredRevisionContext>;
+export function StoredCsvProvider({
+  letter,
+  children,
+}: {
+  letter: string | null;
+  children: ReactNode;
+}) {
+  return <StoredLetterContext value={letter}>{children}</StoredLetterContext>;
 }
 
 const tableWords: Record<StoredResultsTable, string> = {
@@ -39,14 +34,11 @@ const tableWords: Record<StoredResultsTable, string> = {
 const linkClasses =
   'inline-flex items-center rounded-md px-2.5 py-1 text-sm font-semibold text-accent underline underline-offset-4 hover:bg-accent-tint focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-accent';
 
-/**
- * "Download CSV": the server's table of the stored revision, at full precision in SI units.
- * Nothing for a local preview, whose numbers the server has never seen.
- */
-export function StoredCsvLink({ table }: { table: StoredResultsTable }) {
-  const stored = useContext(StoredRevisionContext);
-  if (!stored) return null;
-  const { orgId, worksheetId, letter } = stored;
+/** Only ever under the saved worksheet's page (`worksheets/:worksheetId`), the one with stored results. */
+function StoredCsvAnchor({ letter, table }: { letter: string; table: StoredResultsTable }) {
+  const { orgId } = useCurrentOrg().membership;
+  const { worksheetId } = useParams();
+  if (!worksheetId) return null;
   return (
     <a
       href={resultsCsvUrl(orgId, worksheetId, letter, table)}
@@ -57,4 +49,13 @@ export function StoredCsvLink({ table }: { table: StoredResultsTable }) {
       Download CSV
     </a>
   );
+}
+
+/**
+ * "Download CSV": the server's table of the stored revision, at full precision in SI units.
+ * Nothing for a local preview, whose numbers the server has never seen.
+ */
+export function StoredCsvLink({ table }: { table: StoredResultsTable }) {
+  const letter = useContext(StoredLetterContext);
+  return letter ? <StoredCsvAnchor letter={letter} table={table} /> : null;
 }

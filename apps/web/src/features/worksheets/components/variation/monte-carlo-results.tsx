@@ -1,6 +1,7 @@
 import type { Limit } from '@biasproof/calc';
 import { memo } from 'react';
 import { ResultNumber } from '@/features/worksheets/components/results/result-cells.tsx';
+import { MarkedResult } from '@/features/worksheets/components/results/result-marks.tsx';
 import type { ResultRow } from '@/features/worksheets/components/results/result-csv.ts';
 import { ResultTable } from '@/features/worksheets/components/results/result-table.tsx';
 import { LazyHistogramPlot } from '@/features/worksheets/components/variation/lazy-variation-plots.tsx';
@@ -62,9 +63,14 @@ export const MonteCarloResults = memo(function MonteCarloResults({
     <div className="flex flex-col gap-3" data-testid="monte-carlo-result">
       <p className="text-sm text-ink-700">
         {origin === 'run' ? 'Run in this browser' : 'From the worksheet’s results'}:{' '}
-        <span data-result-path="variation.monteCarlo.samples">{result.samples}</span> samples, seed
-        “<span data-result-path="variation.monteCarlo.seed">{result.seed}</span>”, at{' '}
-        {result.temperature} °C.
+        <MarkedResult path="variation.monteCarlo.samples" className="tabular-nums">
+          {result.samples}
+        </MarkedResult>{' '}
+        samples, seed “
+        <MarkedResult path="variation.monteCarlo.seed" className="">
+          {result.seed}
+        </MarkedResult>
+        ”, at {result.temperature} °C.
       </p>
       <dl className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-[auto_1fr]">
         <dt className="font-semibold text-ink-700">Yield</dt>
@@ -86,7 +92,9 @@ export const MonteCarloResults = memo(function MonteCarloResults({
         </dd>
         <dt className="font-semibold text-ink-700">Did not solve</dt>
         <dd>
-          <span data-result-path="variation.monteCarlo.failed">{result.failed}</span>{' '}
+          <MarkedResult path="variation.monteCarlo.failed" className="tabular-nums">
+            {result.failed}
+          </MarkedResult>{' '}
           <span className="text-ink-600">
             {result.failed > 0 ? '(counted outside the limits)' : 'samples'}
           </span>

@@ -95,7 +95,11 @@ export function StandardValuesSection({
                   {show(r.element)}
                 </th>
                 <td className={tableCell}>
-                  <ResultNumber value={r.value} unit="Ω" path={`elements.${r.element}.value`} />
+                  <ResultNumber
+                    value={r.value}
+                    unit="Ω"
+                    path={`variation.standardValues.${r.element}.value`}
+                  />
                 </td>
                 {series.map((s) => {
                   const v = r.suggestions[s];
