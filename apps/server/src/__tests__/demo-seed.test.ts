@@ -90,7 +90,7 @@ describe('demo data', () => {
   });
 
   it('when the README lists the demo accounts, then the table and the password match the demo data', () => {
-    const rows = [...readme.matchAll(/^\| (\S+@\S+\.example) \| ([^|]+) \| ([^|]+) \|$/gm)].map(
+    const rows = [...readme.matchAll(/^\| (\S+@\S+\.example) +\| ([^|]+) \| ([^|]+) \|$/gm)].map(
       (m) => [m[1], m[2]!.trim(), m[3]!.trim()],
     );
     const expected = demoOrganizations.flatMap((o) =>
