@@ -40,45 +40,39 @@ export function recordRoutes(svc: Services): Router {
     const body = await worksheetsCsv(orgContextOf(res), query);
     send(res, { filename: 'worksheets.csv', body }, 'text/csv; charset=utf-8; header=present');
   });
-  router.get(
-    '/:id/revisions/:letter/report.pdf',
-    ...gate,
-    authorize('read', 'Revision'),
-    async (req, res) => {
-      const { id, letter } = revisionOf(req.params);
-      send(
-        res,
-        await downloadReport(orgContextOf(res), requester(res), id, letter),
-        'application/pdf',
-      );
+  // The three downloads of one revision differ only in what they produce and its type.
+  const revisionDownloads: {
+    file: string;
+    type: string;
+    produce: (res: Response, id: string, letter: string, query: unknown) => Promise<Download>;
+  }[] = [
+    {
+      file: 'report.pdf',
+      type: 'application/pdf',
+      produce: (res, id, letter) => downloadReport(orgContextOf(res), requester(res), id, letter),
     },
-  );
-  router.get(
-    '/:id/revisions/:letter/record.zip',
-    ...gate,
-    authorize('read', 'Revision'),
-    async (req, res) => {
-      const { id, letter } = revisionOf(req.params);
-      send(
-        res,
-        await downloadPackage(orgContextOf(res), requester(res), id, letter),
-        'application/zip',
-      );
+    {
+      file: 'record.zip',
+      type: 'application/zip',
+      produce: (res, id, letter) => downloadPackage(orgContextOf(res), requester(res), id, letter),
     },
-  );
-  router.get(
-    '/:id/revisions/:letter/results.csv',
-    ...gate,
-    authorize('read', 'Revision'),
-    async (req, res) => {
-      const { id, letter } = revisionOf(req.params);
-      const { table } = resultsCsvQuerySchema.parse(req.query);
-      send(
-        res,
-        await downloadResultsCsv(orgContextOf(res), id, letter, table),
-        'text/csv; charset=utf-8; header=present',
-      );
+    {
+      file: 'results.csv',
+      type: 'text/csv; charset=utf-8; header=present',
+      produce: (res, id, letter, query) =>
+        downloadResultsCsv(orgContextOf(res), id, letter, resultsCsvQuerySchema.parse(query).table),
     },
-  );
+  ];
+  for (const { file, type, produce } of revisionDownloads) {
+    router.get(
+      `/:id/revisions/:letter/${file}`,
+      ...gate,
+      authorize('read', 'Revision'),
+      async (req, res) => {
+        const { id, letter } = revisionOf(req.params);
+        send(res, await produce(res, id, letter, req.query), type);
+      },
+    );
+  }
   return router;
 }
